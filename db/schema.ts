@@ -1,0 +1,178 @@
+// The one typed picture of the database (see db/migrations). Column names stay snake_case:
+// no CamelCasePlugin, so what you read here is what PostgreSQL holds.
+//
+// How values travel (set up in db/index.ts):
+// - numeric columns come back as JavaScript numbers (parsed with parseFloat);
+// - date columns come back as "YYYY-MM-DD" strings (never a Date, which would shift by time zone);
+// - timestamptz columns come back as Date;
+// - jsonb columns come back parsed; on insert/update pass JSON text, e.g. `toJson(outline)`
+//   (node-postgres would send a JavaScript array as a PostgreSQL array, not as JSON).
+import type { ColumnType, Generated, GeneratedAlways, Insertable, Selectable, Updateable } from "kysely";
+import type { Ring } from "@/lib/geometry/types";
+
+/** A jsonb column: read as T, written as JSON text (use toJson). */
+export type Json<T> = ColumnType<T, string, string>;
+/** A numeric column: read as number, written as number or decimal text. */
+export type Numeric = ColumnType<number, number | string, number | string>;
+/** A date column: "YYYY-MM-DD" both ways. */
+export type DateOnly = ColumnType<string, string, string>;
+/** A timestamptz column: read as Date, written as Date or ISO text. */
+export type Timestamp = ColumnType<Date, Date | string, Date | string>;
+
+/** Serialise a value for a jsonb column. */
+export function toJson<T>(value: T): string {
+  return JSON.stringify(value);
+}
+
+export const ROLES = ["admin", "operations", "curator", "guard"] as const;
+export type Role = (typeof ROLES)[number];
+
+export const RISK_LEVELS = ["standard", "high"] as const;
+export type RiskLevel = (typeof RISK_LEVELS)[number];
+
+export const ROSTER_STATUSES = ["draft", "published"] as const;
+export type RosterStatus = (typeof ROSTER_STATUSES)[number];
+
+export type Weekday = "mon" | "tue" | "wed" | "thu" | "fri" | "sat" | "sun";
+/** Local wall-clock opening, ["HH:mm", "HH:mm"], or null when closed. */
+export type OpeningSpan = [string, string] | null;
+/** A site's opening hours: the weekly pattern plus dated exceptions (INTERFACES.md `opening`). */
+export interface OpeningHours {
+  weekly: Record<Weekday, OpeningSpan>;
+  dates: Record<string, OpeningSpan>;
+}
+
+/** One stretch of a shift at a post (timestamps as ISO text). */
+export interface ShiftSegment {
+  post: string;
+  start: string;
+  end: string;
+  [extra: string]: unknown;
+}
+/** One break in a shift (timestamps as ISO text). */
+export interface ShiftBreak {
+  start: string;
+  end: string;
+  [extra: string]: unknown;
+}
+
+export interface UsersTable {
+  id: GeneratedAlways<number>;
+  /** Always lower-case; unique. */
+  email: string;
+  name: string;
+  password_hash: string;
+  role: Role;
+  created_at: ColumnType<Date, Date | string | undefined, Date | string>;
+}
+
+export interface SitesTable {
+  id: GeneratedAlways<number>;
+  name: string;
+  /** IANA zone, e.g. "Europe/Berlin". */
+  time_zone: string;
+  hourly_rate: Numeric;
+  opening_hours: Json<OpeningHours>;
+}
+
+export interface FloorsTable {
+  id: GeneratedAlways<number>;
+  site_id: number;
+  name: string;
+  level: number;
+}
+
+export interface RoomsTable {
+  id: GeneratedAlways<number>;
+  floor_id: number;
+  name: string;
+  /** Outer ring in metres, closing point not repeated. */
+  outline: Json<Ring>;
+  /** Holes: vitrines, plinths, pillars, partitions. */
+  obstacles: ColumnType<Ring[], string | undefined, string>;
+  /** Optimistic concurrency: bump on every edit, compare on update. */
+  version: Generated<number>;
+  updated_at: ColumnType<Date, Date | string | undefined, Date | string>;
+}
+
+export interface ExhibitionsTable {
+  id: GeneratedAlways<number>;
+  site_id: number;
+  name: string;
+  starts_on: DateOnly;
+  ends_on: DateOnly;
+}
+
+export interface ExhibitionRoomsTable {
+  exhibition_id: number;
+  room_id: number;
+  risk_level: RiskLevel;
+  /** Metres a guard can watch well; null = unlimited. */
+  sight_range: ColumnType<number | null, number | string | null | undefined, number | string | null>;
+  double_cover: Generated<boolean>;
+}
+
+export interface GuardsTable {
+  id: GeneratedAlways<number>;
+  user_id: number | null;
+  site_id: number;
+  name: string;
+  email: string;
+  contract_hours: Numeric;
+  max_hours: ColumnType<number, number | string | undefined, number | string>;
+  skills: Generated<string[]>;
+}
+
+export interface RostersTable {
+  id: GeneratedAlways<number>;
+  site_id: number;
+  starts_on: DateOnly;
+  days: number;
+  status: ColumnType<RosterStatus, RosterStatus | undefined, RosterStatus>;
+  version: Generated<number>;
+  published_at: ColumnType<Date | null, Date | string | null | undefined, Date | string | null>;
+  created_at: ColumnType<Date, Date | string | undefined, Date | string>;
+}
+
+export interface ShiftsTable {
+  id: GeneratedAlways<number>;
+  roster_id: number;
+  guard_id: number;
+  starts_at: Timestamp;
+  ends_at: Timestamp;
+  segments: ColumnType<ShiftSegment[], string | undefined, string>;
+  breaks: ColumnType<ShiftBreak[], string | undefined, string>;
+}
+
+export interface Database {
+  users: UsersTable;
+  sites: SitesTable;
+  floors: FloorsTable;
+  rooms: RoomsTable;
+  exhibitions: ExhibitionsTable;
+  exhibition_rooms: ExhibitionRoomsTable;
+  guards: GuardsTable;
+  rosters: RostersTable;
+  shifts: ShiftsTable;
+}
+
+export type User = Selectable<UsersTable>;
+export type NewUser = Insertable<UsersTable>;
+export type UserUpdate = Updateable<UsersTable>;
+export type Site = Selectable<SitesTable>;
+export type NewSite = Insertable<SitesTable>;
+export type Floor = Selectable<FloorsTable>;
+export type NewFloor = Insertable<FloorsTable>;
+export type RoomRow = Selectable<RoomsTable>;
+export type NewRoom = Insertable<RoomsTable>;
+export type RoomUpdate = Updateable<RoomsTable>;
+export type Exhibition = Selectable<ExhibitionsTable>;
+export type NewExhibition = Insertable<ExhibitionsTable>;
+export type ExhibitionRoom = Selectable<ExhibitionRoomsTable>;
+export type NewExhibitionRoom = Insertable<ExhibitionRoomsTable>;
+export type Guard = Selectable<GuardsTable>;
+export type NewGuard = Insertable<GuardsTable>;
+export type Roster = Selectable<RostersTable>;
+export type NewRoster = Insertable<RostersTable>;
+export type Shift = Selectable<ShiftsTable>;
+export type NewShift = Insertable<ShiftsTable>;
