@@ -1,0 +1,65 @@
+import type { Metadata } from "next";
+import { requirePageUser } from "@/lib/auth/session";
+import { calendarDate } from "@/components/when";
+import { exhibitionsWithRooms, mainSite, siteDay } from "../_queries/site";
+
+export const metadata: Metadata = { title: "Exhibitions" };
+
+export default async function ExhibitionsPage() {
+  await requirePageUser("exhibitions:view");
+  const site = await mainSite();
+  const exhibitions = site ? await exhibitionsWithRooms(site.id) : [];
+  const today = site ? siteDay(site).date : "";
+  return (
+    <div className="space-y-6">
+      <h1>Exhibitions</h1>
+      {exhibitions.length === 0 && <p>No exhibitions yet.</p>}
+      {exhibitions.map((exhibition) => {
+        const state = exhibition.ends_on < today ? "ended" : exhibition.starts_on > today ? "upcoming" : "running";
+        return (
+          <section key={exhibition.id} aria-labelledby={`exhibition-${exhibition.id}`} className="card">
+            <div className="flex flex-wrap items-baseline justify-between gap-2">
+              <h2 id={`exhibition-${exhibition.id}`}>{exhibition.name}</h2>
+              <span className="tag">{state}</span>
+            </div>
+            <p className="text-sm text-stone-700">
+              {calendarDate(exhibition.starts_on)} – {calendarDate(exhibition.ends_on)}
+            </p>
+            <div className="mt-3 overflow-x-auto">
+              <table className="data-table">
+                <caption className="sr-only">Rooms of {exhibition.name}</caption>
+                <thead>
+                  <tr>
+                    <th scope="col">Room</th>
+                    <th scope="col">Floor</th>
+                    <th scope="col">Risk</th>
+                    <th scope="col">Sight range</th>
+                    <th scope="col">Double cover</th>
+                  </tr>
+                </thead>
+                <tbody>
+                  {exhibition.rooms.map((room) => (
+                    <tr key={room.id}>
+                      <td>{room.name}</td>
+                      <td>{room.floor}</td>
+                      <td>
+                        <span className={room.risk_level === "high" ? "tag-high" : "tag"}>{room.risk_level}</span>
+                      </td>
+                      <td>{room.sight_range == null ? "unlimited" : `${room.sight_range} m`}</td>
+                      <td>{room.double_cover ? "yes" : "no"}</td>
+                    </tr>
+                  ))}
+                  {exhibition.rooms.length === 0 && (
+                    <tr>
+                      <td colSpan={5}>No rooms assigned yet.</td>
+                    </tr>
+                  )}
+                </tbody>
+              </table>
+            </div>
+          </section>
+        );
+      })}
+    </div>
+  );
+}

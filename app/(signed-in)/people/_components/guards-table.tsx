@@ -1,0 +1,107 @@
+"use client";
+import {
+  createColumnHelper,
+  flexRender,
+  getCoreRowModel,
+  getFilteredRowModel,
+  getSortedRowModel,
+  useReactTable,
+  type SortingState,
+} from "@tanstack/react-table";
+import { useState } from "react";
+
+export interface GuardRow {
+  id: number;
+  name: string;
+  email: string;
+  contract_hours: number;
+  max_hours: number;
+  skills: string[];
+}
+
+const column = createColumnHelper<GuardRow>();
+const columns = [
+  column.accessor("name", { header: "Name" }),
+  column.accessor("email", { header: "E-mail" }),
+  column.accessor("contract_hours", { header: "Contract hours", cell: (info) => info.getValue() }),
+  column.accessor("max_hours", { header: "Max hours" }),
+  column.accessor((row) => row.skills.join(", "), {
+    id: "skills",
+    header: "Skills",
+    cell: (info) =>
+      info.row.original.skills.length === 0 ? (
+        <span className="text-stone-600">none</span>
+      ) : (
+        <ul className="flex flex-wrap gap-1">
+          {info.row.original.skills.map((skill) => (
+            <li key={skill} className="tag">{skill}</li>
+          ))}
+        </ul>
+      ),
+  }),
+];
+
+export function GuardsTable({ guards }: { guards: GuardRow[] }) {
+  const [sorting, setSorting] = useState<SortingState>([{ id: "name", desc: false }]);
+  const [filter, setFilter] = useState("");
+  const table = useReactTable({
+    data: guards,
+    columns,
+    state: { sorting, globalFilter: filter },
+    onSortingChange: setSorting,
+    onGlobalFilterChange: setFilter,
+    getCoreRowModel: getCoreRowModel(),
+    getSortedRowModel: getSortedRowModel(),
+    getFilteredRowModel: getFilteredRowModel(),
+  });
+
+  return (
+    <div className="card">
+      <label htmlFor="guard-filter" className="field-label">Filter guards</label>
+      <input
+        id="guard-filter"
+        type="search"
+        value={filter}
+        onChange={(event) => setFilter(event.target.value)}
+        placeholder="name or skill"
+        className="field-input mb-4 max-w-sm"
+      />
+      <div className="overflow-x-auto">
+        <table className="data-table">
+          <caption className="sr-only">Guards with contract hours and skills</caption>
+          <thead>
+            {table.getHeaderGroups().map((group) => (
+              <tr key={group.id}>
+                {group.headers.map((header) => {
+                  const sorted = header.column.getIsSorted();
+                  return (
+                    <th key={header.id} scope="col" aria-sort={sorted === "asc" ? "ascending" : sorted === "desc" ? "descending" : "none"}>
+                      <button type="button" onClick={header.column.getToggleSortingHandler()} className="font-semibold text-ink-800">
+                        {flexRender(header.column.columnDef.header, header.getContext())}
+                        <span aria-hidden="true">{sorted === "asc" ? " ▲" : sorted === "desc" ? " ▼" : ""}</span>
+                      </button>
+                    </th>
+                  );
+                })}
+              </tr>
+            ))}
+          </thead>
+          <tbody>
+            {table.getRowModel().rows.map((row) => (
+              <tr key={row.id}>
+                {row.getVisibleCells().map((cell) => (
+                  <td key={cell.id}>{flexRender(cell.column.columnDef.cell, cell.getContext())}</td>
+                ))}
+              </tr>
+            ))}
+            {table.getRowModel().rows.length === 0 && (
+              <tr>
+                <td colSpan={columns.length}>No guard matches “{filter}”.</td>
+              </tr>
+            )}
+          </tbody>
+        </table>
+      </div>
+    </div>
+  );
+}

@@ -1,0 +1,35 @@
+import { NextResponse, type NextRequest } from "next/server";
+import { db } from "@/db";
+import { ApiProblem } from "@/lib/api/problem";
+import { parseBody, parseParams } from "@/lib/api/parse";
+import { requireRole } from "@/lib/api/require-role";
+import { route } from "@/lib/api/route";
+import { roleChangeSchema, userIdSchema } from "@/lib/api/user-role";
+
+type Context = { params: Promise<{ id: string }> };
+
+/** PATCH /api/users/[id] { role }: an admin changes a user's role. */
+export const PATCH = route<Context>(async (request: NextRequest, context) => {
+  await requireRole(request, "users:manage");
+  const { id } = parseParams(await context.params, userIdSchema);
+  const { role } = await parseBody(request, roleChangeSchema);
+
+  const updated = await db.transaction().execute(async (trx) => {
+    const target = await trx.selectFrom("users").select(["id", "role"]).where("id", "=", id).forUpdate().executeTakeFirst();
+    if (!target) throw new ApiProblem(404, "not-found", `No user with id ${id}.`);
+    if (target.role === "admin" && role !== "admin") {
+      // Someone must still be able to manage users afterwards.
+      const admins = await trx.selectFrom("users").select(trx.fn.countAll<string>().as("count")).where("role", "=", "admin").executeTakeFirstOrThrow();
+      if (Number(admins.count) <= 1) {
+        throw new ApiProblem(409, "last-admin", "This is the only administrator; make another user admin first.", { field: "role" });
+      }
+    }
+    return trx
+      .updateTable("users")
+      .set({ role })
+      .where("id", "=", id)
+      .returning(["id", "email", "name", "role"])
+      .executeTakeFirstOrThrow();
+  });
+  return NextResponse.json({ user: updated });
+});

@@ -1,0 +1,6 @@
+import { forbidden } from "next/navigation";
+
+// The proxy rewrites a page its role may not open to here; forbidden() answers 403 with app/forbidden.tsx.
+export default function ForbiddenRoute(): never {
+  forbidden();
+}

@@ -1,0 +1,24 @@
+import "server-only";
+import type { NextRequest } from "next/server";
+import { ApiProblem, apiError, isDatabaseUnavailable } from "@/lib/api/problem";
+
+type Handler<Ctx> = (request: NextRequest, context: Ctx) => Promise<Response>;
+
+/**
+ * Wraps a route handler: an ApiProblem becomes its JSON answer, PostgreSQL being down becomes 503,
+ * anything else becomes a 500 with no stack trace (the trace goes to the server log only).
+ */
+export function route<Ctx = { params: Promise<Record<string, string>> }>(handler: Handler<Ctx>): Handler<Ctx> {
+  return async (request, context) => {
+    try {
+      return await handler(request, context);
+    } catch (error) {
+      if (error instanceof ApiProblem) return error.toResponse();
+      if (isDatabaseUnavailable(error)) {
+        return apiError(503, "database-unavailable", "The database is unavailable; try again shortly.");
+      }
+      console.error(`[api] ${request.method} ${request.nextUrl.pathname} failed:`, error);
+      return apiError(500, "internal", "Something went wrong on the server; it has been logged.");
+    }
+  };
+}
