@@ -1,0 +1,313 @@
+// Triangulation of a room with obstacles over its own vertices, O(n log n) worst case:
+// 1. a top-down plane sweep splits the floor into y-monotone pieces (Lee & Preparata 1977; Garey,
+//    Johnson, Preparata & Tarjan 1978), classifying corners as start, end, split, merge or regular
+//    and keeping the walls that cross the sweep line in an ordered skip list; obstacles are just
+//    more walls to the same sweep;
+// 2. each piece is triangulated in linear time with a stack (Garey et al. 1978).
+// Ties in y are broken by x (isAbove), every sign comes from exact predicates, and collinear
+// vertices stay corners of strictly positive triangles: n + 2h - 2 triangles in all.
+import type { Point, Room, Triangulation } from "./types";
+import { compareTopDown, isAbove, orient } from "./predicates";
+import { SweepStatus, type StatusNode } from "./sweep-status";
+
+const enum Corner {
+  Start,
+  End,
+  Split,
+  Merge,
+  RegularFloorRight,
+  RegularFloorLeft,
+}
+
+/** The room's corners as one array with ring links; walls run from a corner to its `next`. */
+interface RoomGraph {
+  points: Point[];
+  next: Int32Array;
+  prev: Int32Array;
+}
+
+function roomGraph(room: Room): RoomGraph {
+  const rings = [room.outline, ...room.obstacles];
+  const n = rings.reduce((sum, ring) => sum + ring.length, 0);
+  const points: Point[] = new Array(n);
+  const next = new Int32Array(n);
+  const prev = new Int32Array(n);
+  let offset = 0;
+  for (const ring of rings) {
+    const m = ring.length;
+    for (let i = 0; i < m; i++) {
+      points[offset + i] = ring[i];
+      next[offset + i] = offset + ((i + 1) % m);
+      prev[offset + i] = offset + ((i - 1 + m) % m);
+    }
+    offset += m;
+  }
+  return { points, next, prev };
+}
+
+/**
+ * Triangulate a normalised, valid room (see normaliseRoom and validateRoom): outline
+ * counter-clockwise, obstacles clockwise. `points` are the outline's vertices then each obstacle's
+ * in order; every triangle is counter-clockwise with strictly positive area.
+ */
+export function triangulate(room: Room): Triangulation {
+  const graph = roomGraph(room);
+  const diagonals = monotoneDiagonals(graph);
+  const pieces = monotonePieces(graph, diagonals);
+  const triangles: [number, number, number][] = [];
+  for (const piece of pieces) triangulateMonotonePiece(graph.points, piece, triangles);
+  return { points: graph.points, triangles };
+}
+
+/**
+ * The sweep of step 1: the diagonals that cut the floor into y-monotone pieces. Walls in the
+ * status are those with floor to their right (they run downward in ring order); each has a helper,
+ * the lowest corner above the sweep line that sees it horizontally.
+ */
+export function monotoneDiagonals(graph: RoomGraph): [number, number][] {
+  const { points, next, prev } = graph;
+  const n = points.length;
+  const order = Array.from({ length: n }, (_, i) => i).sort((a, b) => compareTopDown(points[a], points[b]));
+  const kind = new Uint8Array(n);
+  for (let v = 0; v < n; v++) {
+    const prevAbove = isAbove(points[prev[v]], points[v]);
+    const nextAbove = isAbove(points[next[v]], points[v]);
+    const convex = orient(points[prev[v]], points[v], points[next[v]]) > 0;
+    if (!prevAbove && !nextAbove) kind[v] = convex ? Corner.Start : Corner.Split;
+    else if (prevAbove && nextAbove) kind[v] = convex ? Corner.End : Corner.Merge;
+    else kind[v] = prevAbove ? Corner.RegularFloorRight : Corner.RegularFloorLeft;
+  }
+
+  // Wall w runs from corner w to next[w]; the status holds such walls, keyed by their first corner.
+  const status = new SweepStatus<number>();
+  const nodeOf: (StatusNode<number> | null)[] = new Array(n).fill(null);
+  const helper = new Int32Array(n).fill(-1);
+  const diagonals: [number, number][] = [];
+  const leftOf = (v: number) => (wall: number) => orient(points[wall], points[next[wall]], points[v]) > 0;
+  const wallLeftOf = (v: number): number => {
+    const node = status.lastWhere(leftOf(v));
+    if (node === null) throw new Error(`triangulate: no wall left of corner ${v}; is the room valid and normalised?`);
+    return node.item;
+  };
+  const insertWall = (v: number) => {
+    nodeOf[v] = status.insert(v, leftOf(v));
+    helper[v] = v;
+  };
+  const removeWall = (wall: number) => {
+    status.remove(nodeOf[wall]!);
+    nodeOf[wall] = null;
+  };
+  const joinIfMerge = (v: number, wall: number) => {
+    if (kind[helper[wall]] === Corner.Merge) diagonals.push([v, helper[wall]]);
+  };
+
+  for (const v of order) {
+    switch (kind[v]) {
+      case Corner.Start:
+        insertWall(v);
+        break;
+      case Corner.End:
+        joinIfMerge(v, prev[v]);
+        removeWall(prev[v]);
+        break;
+      case Corner.Split: {
+        const left = wallLeftOf(v);
+        diagonals.push([v, helper[left]]);
+        helper[left] = v;
+        insertWall(v);
+        break;
+      }
+      case Corner.Merge: {
+        joinIfMerge(v, prev[v]);
+        removeWall(prev[v]);
+        const left = wallLeftOf(v);
+        joinIfMerge(v, left);
+        helper[left] = v;
+        break;
+      }
+      case Corner.RegularFloorRight:
+        joinIfMerge(v, prev[v]);
+        removeWall(prev[v]);
+        insertWall(v);
+        break;
+      case Corner.RegularFloorLeft: {
+        const left = wallLeftOf(v);
+        joinIfMerge(v, left);
+        helper[left] = v;
+        break;
+      }
+    }
+  }
+  return diagonals;
+}
+
+/** Half-plane then exact orientation: sorts directions around a centre counter-clockwise from +x. */
+function angularCompare(centre: Point, a: Point, b: Point): number {
+  const half = (p: Point) => (p[1] > centre[1] || (p[1] === centre[1] && p[0] > centre[0]) ? 0 : 1);
+  const ha = half(a);
+  const hb = half(b);
+  if (ha !== hb) return ha - hb;
+  return -orient(centre, a, b);
+}
+
+/**
+ * The faces cut out by walls and diagonals, each a counter-clockwise cycle of corners: the
+ * y-monotone pieces. Built from the planar graph by following, at each corner, the next edge
+ * clockwise from the one we arrived by (which keeps the face on the left).
+ */
+export function monotonePieces(graph: RoomGraph, diagonals: [number, number][]): number[][] {
+  const { points, next } = graph;
+  const n = points.length;
+  const degree = new Int32Array(n + 1);
+  for (let v = 0; v < n; v++) {
+    degree[v]++;
+    degree[next[v]]++;
+  }
+  for (const [a, b] of diagonals) {
+    degree[a]++;
+    degree[b]++;
+  }
+  const offset = new Int32Array(n + 1);
+  for (let v = 0; v < n; v++) offset[v + 1] = offset[v] + degree[v];
+  const fill = offset.slice(0, n);
+  const target = new Int32Array(offset[n]);
+  const add = (a: number, b: number) => {
+    target[fill[a]++] = b;
+    target[fill[b]++] = a;
+  };
+  for (let v = 0; v < n; v++) add(v, next[v]);
+  for (const [a, b] of diagonals) add(a, b);
+
+  // Sort each corner's neighbours counter-clockwise; remember where each half-edge sits.
+  const slot = new Map<number, number>();
+  for (let v = 0; v < n; v++) {
+    const from = offset[v];
+    const to = offset[v + 1];
+    const around = Array.from(target.subarray(from, to)).sort((a, b) => angularCompare(points[v], points[a], points[b]));
+    for (let k = 0; k < around.length; k++) {
+      target[from + k] = around[k];
+      slot.set(v * n + around[k], from + k);
+    }
+  }
+
+  const visited = new Uint8Array(offset[n]);
+  // The far side of every wall is outside the floor.
+  for (let v = 0; v < n; v++) visited[slot.get(next[v] * n + v)!] = 1;
+  const pieces: number[][] = [];
+  for (let v = 0; v < n; v++) {
+    for (let k = offset[v]; k < offset[v + 1]; k++) {
+      if (visited[k]) continue;
+      const piece: number[] = [];
+      let from = v;
+      let edge = k;
+      while (!visited[edge]) {
+        visited[edge] = 1;
+        piece.push(from);
+        const to = target[edge];
+        // Next edge: the neighbour of `to` just clockwise from `from`.
+        const back = slot.get(to * n + from)!;
+        const nextEdge = back === offset[to] ? offset[to + 1] - 1 : back - 1;
+        from = to;
+        edge = nextEdge;
+      }
+      pieces.push(piece);
+    }
+  }
+  return pieces;
+}
+
+const LEFT = 1;
+const RIGHT = 2;
+
+/**
+ * Step 2: triangulate one y-monotone piece (a counter-clockwise cycle of corners) with a stack,
+ * in linear time. The stack holds a chain that turns away from the floor (reflex or straight);
+ * a corner on the same chain cuts off triangles only while they are strictly positive, so straight
+ * runs of collinear corners wait on the stack and are fanned from the opposite chain later.
+ */
+export function triangulateMonotonePiece(points: Point[], piece: number[], out: [number, number, number][]): void {
+  const m = piece.length;
+  if (m < 3) throw new Error(`triangulate: a piece with ${m} corners; is the room valid?`);
+  if (m === 3) {
+    pushTriangle(points, out, piece[0], piece[1], piece[2]);
+    return;
+  }
+  let top = 0;
+  let bottom = 0;
+  for (let i = 1; i < m; i++) {
+    if (isAbove(points[piece[i]], points[piece[top]])) top = i;
+    if (isAbove(points[piece[bottom]], points[piece[i]])) bottom = i;
+  }
+  // Counter-clockwise from the top runs down the left chain; from the bottom, up the right chain.
+  const sorted = new Int32Array(m);
+  const chain = new Uint8Array(m);
+  let l = top;
+  let r = (top - 1 + m) % m;
+  sorted[0] = piece[top];
+  chain[0] = LEFT | RIGHT;
+  for (let k = 1; k < m; k++) {
+    const nl = (l + 1) % m;
+    // Merge the two descending chains; the bottom corner closes both.
+    if (nl !== bottom && (r === bottom || isAbove(points[piece[nl]], points[piece[r]]))) {
+      sorted[k] = piece[nl];
+      chain[k] = LEFT;
+      l = nl;
+    } else if (r !== bottom) {
+      sorted[k] = piece[r];
+      chain[k] = RIGHT;
+      r = (r - 1 + m) % m;
+    } else {
+      sorted[k] = piece[bottom];
+      chain[k] = LEFT | RIGHT;
+    }
+  }
+
+  const stack: number[] = [0, 1];
+  for (let j = 2; j < m - 1; j++) {
+    const u = sorted[j];
+    const topIndex = stack[stack.length - 1];
+    if ((chain[j] & chain[topIndex]) === 0) {
+      // Opposite chains: u sees every corner on the stack; fan them all from u.
+      fanFrom(points, out, u, chain[j], stack.map((i) => sorted[i]));
+      stack.length = 0;
+      stack.push(j - 1, j);
+    } else {
+      let last = stack.pop()!;
+      while (stack.length > 0) {
+        const q = sorted[stack[stack.length - 1]];
+        const p = sorted[last];
+        const positive = chain[j] === LEFT ? orient(points[q], points[p], points[u]) > 0 : orient(points[u], points[p], points[q]) > 0;
+        if (!positive) break;
+        if (chain[j] === LEFT) out.push([q, p, u]);
+        else out.push([u, p, q]);
+        last = stack.pop()!;
+      }
+      stack.push(last, j);
+    }
+  }
+  // The bottom corner sees what is left on the stack.
+  const lastOnStack = stack[stack.length - 1];
+  const bottomChain = chain[lastOnStack] === LEFT ? RIGHT : LEFT;
+  fanFrom(points, out, sorted[m - 1], bottomChain, stack.map((i) => sorted[i]));
+}
+
+/** Triangles from corner u (on chain `side`) to each consecutive pair of the stacked corners. */
+function fanFrom(points: Point[], out: [number, number, number][], u: number, side: number, stacked: number[]): void {
+  for (let i = 0; i + 1 < stacked.length; i++) {
+    const upper = stacked[i];
+    const lower = stacked[i + 1];
+    if (side === LEFT) pushTriangle(points, out, u, lower, upper);
+    else pushTriangle(points, out, u, upper, lower);
+  }
+}
+
+/** Keep the counter-clockwise triangle; a non-positive one means the input broke a precondition. */
+function pushTriangle(points: Point[], out: [number, number, number][], a: number, b: number, c: number): void {
+  const o = orient(points[a], points[b], points[c]);
+  if (!(o > 0)) {
+    throw new Error(
+      `triangulate: corners ${a}, ${b}, ${c} would make a ${o === 0 ? "flat" : "clockwise"} triangle; is the room valid and normalised?`,
+    );
+  }
+  out.push([a, b, c]);
+}
