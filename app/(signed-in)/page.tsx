@@ -82,7 +82,7 @@ async function GuardNextShift({ userId, timeZone }: { userId: number; timeZone: 
 }
 
 async function AdminSummary() {
-  const counts = await db.selectFrom("users").select(["role", db.fn.countAll<string>().as("count")]).groupBy("role").orderBy("role").execute();
+  const counts = await db.selectFrom("users").select((eb) => ["role", eb.fn.countAll<string>().as("count")]).groupBy("role").orderBy("role").execute();
   return (
     <section aria-labelledby="accounts" className="card">
       <h2 id="accounts">Accounts</h2>
@@ -106,7 +106,7 @@ async function OperationsSummary({ siteId }: { siteId: number }) {
   const [guards, rosters] = await Promise.all([
     db
       .selectFrom("guards")
-      .select([db.fn.countAll<string>().as("count"), db.fn.sum<number>("contract_hours").as("hours")])
+      .select((eb) => [eb.fn.countAll<string>().as("count"), eb.fn.sum<number>("contract_hours").as("hours")])
       .where("site_id", "=", siteId)
       .executeTakeFirstOrThrow(),
     db.selectFrom("rosters").select(["id", "starts_on", "status", "version"]).where("site_id", "=", siteId).orderBy("starts_on", "desc").limit(3).execute(),

@@ -33,13 +33,13 @@ export default async function StaffingPage() {
   const [capacity, rosters] = await Promise.all([
     db
       .selectFrom("guards")
-      .select([db.fn.countAll<string>().as("guards"), db.fn.sum<number>("contract_hours").as("hours")])
+      .select((eb) => [eb.fn.countAll<string>().as("guards"), eb.fn.sum<number>("contract_hours").as("hours")])
       .where("site_id", "=", site.id)
       .executeTakeFirstOrThrow(),
     db
       .selectFrom("rosters")
       .leftJoin("shifts", "shifts.roster_id", "rosters.id")
-      .select(["rosters.id", "rosters.starts_on", "rosters.days", "rosters.status", "rosters.version", "rosters.published_at", db.fn.count<string>("shifts.id").as("shifts")])
+      .select((eb) => ["rosters.id", "rosters.starts_on", "rosters.days", "rosters.status", "rosters.version", "rosters.published_at", eb.fn.count<string>("shifts.id").as("shifts")])
       .where("rosters.site_id", "=", site.id)
       .groupBy("rosters.id")
       .orderBy("rosters.starts_on", "desc")

@@ -19,7 +19,7 @@ export const PATCH = route<Context>(async (request: NextRequest, context) => {
     if (!target) throw new ApiProblem(404, "not-found", `No user with id ${id}.`);
     if (target.role === "admin" && role !== "admin") {
       // Someone must still be able to manage users afterwards.
-      const admins = await trx.selectFrom("users").select(trx.fn.countAll<string>().as("count")).where("role", "=", "admin").executeTakeFirstOrThrow();
+      const admins = await trx.selectFrom("users").select((eb) => eb.fn.countAll<string>().as("count")).where("role", "=", "admin").executeTakeFirstOrThrow();
       if (Number(admins.count) <= 1) {
         throw new ApiProblem(409, "last-admin", "This is the only administrator; make another user admin first.", { field: "role" });
       }
