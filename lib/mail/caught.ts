@@ -38,7 +38,8 @@ const ID_PATTERN = /^[A-Za-z0-9_-]{1,100}$/;
 
 /** The folder the fake writes to (MAIL_DIR, default .data/mail under the working folder). */
 export function mailDir(): string {
-  return path.resolve(process.env.MAIL_DIR || path.join(".data", "mail"));
+  // The ignore comments keep Next.js from tracing the whole project into the server bundle.
+  return path.resolve(/*turbopackIgnore: true*/ process.env.MAIL_DIR || path.join(".data", "mail"));
 }
 
 export function isCaughtMailId(id: string): boolean {
@@ -47,7 +48,7 @@ export function isCaughtMailId(id: string): boolean {
 
 async function readMessageFile(file: string): Promise<CaughtMail | null> {
   try {
-    return JSON.parse(await fs.readFile(file, "utf8")) as CaughtMail;
+    return JSON.parse(await fs.readFile(/*turbopackIgnore: true*/ file, "utf8")) as CaughtMail;
   } catch {
     // A file removed or being replaced between listing and reading: treat as absent.
     return null;
@@ -62,7 +63,7 @@ export async function listCaughtMail(options: { to?: string; limit?: number } = 
   const folder = mailDir();
   let names: string[];
   try {
-    names = await fs.readdir(folder);
+    names = await fs.readdir(/*turbopackIgnore: true*/ folder);
   } catch (error) {
     if ((error as NodeJS.ErrnoException).code === "ENOENT") return [];
     throw error;
@@ -71,7 +72,7 @@ export async function listCaughtMail(options: { to?: string; limit?: number } = 
   const messages = await Promise.all(
     names
       .filter((name) => name.endsWith(".json") && isCaughtMailId(name.slice(0, -5)))
-      .map((name) => readMessageFile(path.join(folder, name))),
+      .map((name) => readMessageFile(path.join(/*turbopackIgnore: true*/ folder, name))),
   );
   const summaries = messages
     .filter((mail): mail is CaughtMail => mail !== null)
@@ -91,5 +92,5 @@ export async function listCaughtMail(options: { to?: string; limit?: number } = 
 /** One caught message by id, or null when there is none (or the id is malformed). */
 export async function readCaughtMail(id: string): Promise<CaughtMail | null> {
   if (!isCaughtMailId(id)) return null;
-  return readMessageFile(path.join(mailDir(), `${id}.json`));
+  return readMessageFile(path.join(/*turbopackIgnore: true*/ mailDir(), `${id}.json`));
 }

@@ -13,7 +13,7 @@ export interface SmtpSettings {
 const LOOPBACK = /^(127\.\d{1,3}\.\d{1,3}\.\d{1,3}|localhost|::1)$/;
 
 /** SMTP host and port from SMTP_HOST / SMTP_PORT (default 127.0.0.1:2525). */
-export function smtpSettings(env: NodeJS.ProcessEnv = process.env): SmtpSettings {
+export function smtpSettings(env: Record<string, string | undefined> = process.env): SmtpSettings {
   const host = env.SMTP_HOST || "127.0.0.1";
   const port = Number(env.SMTP_PORT || 2525);
   if (!LOOPBACK.test(host)) {

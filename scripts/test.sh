@@ -1,0 +1,83 @@
+#!/usr/bin/env bash
+# npm test: the npm start set-up against a fresh `sightward_test` database, then
+#   1. unit and integration tests (vitest; integration tests use the real PostgreSQL),
+#   2. next build, served on 127.0.0.1:3100,
+#   3. browser tests (vitest.e2e.config.ts: playwright-core driving Debian's chromium).
+# Fails fast; always stops what it started. Works with CI=true, no stdin, as root.
+set -euo pipefail
+SIGHTWARD_COMMAND=test
+source "$(dirname "${BASH_SOURCE[0]}")/lib/common.sh"
+source "$ROOT/scripts/lib/postgres.sh"
+source "$ROOT/scripts/lib/app.sh"
+cd "$ROOT"
+install_cleanup_trap
+exec </dev/null
+
+TEST_PORT=${TEST_PORT:-3100}
+export SMTP_HOST=127.0.0.1
+export SMTP_PORT=${TEST_SMTP_PORT:-2526}
+export MAIL_DIR=$ROOT/.data/mail-test
+export NEXTAUTH_URL=http://127.0.0.1:$TEST_PORT
+export NEXTAUTH_SECRET=sightward-test-secret-not-for-production-use
+export E2E_BASE_URL=http://127.0.0.1:$TEST_PORT
+export CHROMIUM_PATH=${CHROMIUM_PATH:-/usr/bin/chromium}
+export NEXT_TELEMETRY_DISABLED=1
+export CI=${CI:-true}
+
+PHASES=()
+phase_start=$SECONDS
+phase() {
+  local now=$SECONDS
+  [ ${#PHASES[@]} -gt 0 ] && PHASES[-1]="${PHASES[-1]} ($((now - phase_start)) s)"
+  phase_start=$now
+  PHASES+=("$1")
+  say "── $1"
+}
+summary() {
+  [ ${#PHASES[@]} -gt 0 ] && PHASES[-1]="${PHASES[-1]} ($((SECONDS - phase_start)) s)"
+  local line
+  for line in "${PHASES[@]}"; do say "   $line"; done
+  say "total $SECONDS s"
+}
+on_cleanup summary
+
+mkdir -p "$ROOT/.data/logs"
+phase "set-up: packages, chromium, PostgreSQL, database sightward_test, mail fake"
+ensure_node_modules
+if [ ! -x "$CHROMIUM_PATH" ]; then
+  apt_install chromium
+  [ -x "$CHROMIUM_PATH" ] || die "chromium installed but $CHROMIUM_PATH is missing; set CHROMIUM_PATH"
+fi
+require_free_port "$TEST_PORT" TEST_PORT "the app under test"
+require_free_port "$SMTP_PORT" TEST_SMTP_PORT "the test mail fake"
+if [ -f "$ROOT/.data/run/app.pid" ] && pid_alive "$(cat "$ROOT/.data/run/app.pid")"; then
+  say "warning: npm start is serving this checkout (pid $(cat "$ROOT/.data/run/app.pid")); next build below replaces its .next"
+fi
+
+pg_start
+pg_recreate_database sightward_test
+export DATABASE_URL=$(pg_url sightward_test)
+rm -rf "$MAIL_DIR"
+mkdir -p "$MAIL_DIR"
+db_prepare
+mail_fake_start
+
+phase "unit and integration tests (vitest)"
+"$ROOT/node_modules/.bin/vitest" run
+
+phase "build (next build)"
+next_build
+
+phase "serve the build on 127.0.0.1:$TEST_PORT"
+next_serve "$TEST_PORT" "$ROOT/.data/logs/app-test.log"
+say "the app answers at $E2E_BASE_URL (log: .data/logs/app-test.log)"
+
+if [ -f "$ROOT/vitest.e2e.config.ts" ]; then
+  phase "browser tests (vitest --config vitest.e2e.config.ts)"
+  "$ROOT/node_modules/.bin/vitest" run --config vitest.e2e.config.ts
+else
+  say "no vitest.e2e.config.ts yet: no browser tests to run"
+fi
+
+phase "done"
+say "all test phases passed"
