@@ -1,10 +1,11 @@
 // Rooms as curators draw them: normalise the rings and reject what cannot be a gallery floor, with
 // messages a curator can act on and the place on the drawing where the problem is.
 //
-// Numbering used in every message: vertices are numbered from 1 in the order the ring was given
-// (after the closing point; a point repeated right after itself keeps the number of its first
-// appearance). Wall i-j joins vertex i to vertex j = i + 1; the last wall of a ring with m vertices
-// is "m-1". The outline is ring 0; obstacles are numbered from 1 in the order given.
+// Numbering used in every message: vertices are numbered from 1 in the order the ring was given.
+// Wall i-j joins vertex i to vertex j = i + 1; the last wall of a ring with m vertices is "m-1".
+// A point repeated right after itself is one corner: walls leaving it use its last number and
+// walls reaching it its first ([a, b, b, c] has walls 1-2 and 3-4). The outline is ring 0;
+// obstacles are numbered from 1 in the order given.
 import type { Point, Ring, Room } from "./types";
 import {
   compareLeftRight,
@@ -40,23 +41,30 @@ export const DEFAULT_MAX_VERTICES = 50_000;
 interface CleanRing {
   points: Point[];
   numbers: number[];
+  lastNumbers: number[];
 }
 
 /** Drop the closing point and points equal to their predecessor; keep collinear points. */
 function cleanRing(ring: Ring): CleanRing {
   const points: Point[] = [];
   const numbers: number[] = [];
+  const lastNumbers: number[] = [];
   for (let i = 0; i < ring.length; i++) {
     const p = ring[i];
-    if (points.length > 0 && samePoint(points[points.length - 1], p)) continue;
+    if (points.length > 0 && samePoint(points[points.length - 1], p)) {
+      lastNumbers[lastNumbers.length - 1] = i + 1;
+      continue;
+    }
     points.push([p[0], p[1]]);
     numbers.push(i + 1);
+    lastNumbers.push(i + 1);
   }
   while (points.length > 1 && samePoint(points[0], points[points.length - 1])) {
     points.pop();
     numbers.pop();
+    lastNumbers.pop();
   }
-  return { points, numbers };
+  return { points, numbers, lastNumbers };
 }
 
 /**
@@ -168,7 +176,7 @@ function allCollinear(points: Point[]): boolean {
 
 function wallName(rings: CleanRing[], wall: Wall): string {
   const ring = rings[wall.ring];
-  const from = ring.numbers[wall.index];
+  const from = ring.lastNumbers[wall.index];
   const to = ring.numbers[(wall.index + 1) % wall.ringSize];
   return `${from}-${to}`;
 }
