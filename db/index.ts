@@ -36,14 +36,17 @@ export interface DbOptions {
   max?: number;
 }
 
-/** A new Kysely handle on `url` (tests and scripts; the app uses `db`). Call destroy() when done. */
-export function createDb(url: string = databaseUrl(), options: DbOptions = {}): Kysely<Database> {
+/**
+ * A new Kysely handle on `url` (tests and scripts; the app uses `db`). Call destroy() when done.
+ * `url` may be a function: it is then read when the first query runs, not now.
+ */
+export function createDb(url: string | (() => string) = databaseUrl, options: DbOptions = {}): Kysely<Database> {
   return new Kysely<Database>({
     dialect: new PostgresDialect({
       // A factory, so the pool (and any connection) only exists once a query runs.
       pool: async () =>
         new pg.Pool({
-          connectionString: url,
+          connectionString: typeof url === "function" ? url() : url,
           max: options.max ?? 10,
           connectionTimeoutMillis: options.connectionTimeoutMillis ?? 5000,
           idleTimeoutMillis: 30_000,
@@ -56,19 +59,8 @@ export function createDb(url: string = databaseUrl(), options: DbOptions = {}): 
 // One handle per process, kept on globalThis so Next.js dev reloads do not pile up pools.
 const globalForDb = globalThis as unknown as { sightwardDb?: Kysely<Database> };
 
-function sharedDb(): Kysely<Database> {
-  globalForDb.sightwardDb ??= createDb(databaseUrl(), { connectionTimeoutMillis: 3000 });
-  return globalForDb.sightwardDb;
-}
-
 /**
- * The app's database handle. A proxy: the real Kysely instance is built on first use, so importing
- * this module reads no environment and opens nothing.
+ * The app's database handle. Building it opens nothing: the pool is made, from DATABASE_URL as it
+ * is then, when the first query runs.
  */
-export const db: Kysely<Database> = new Proxy({} as Kysely<Database>, {
-  get(_target, property) {
-    const real = sharedDb();
-    const value = Reflect.get(real, property, real);
-    return typeof value === "function" ? value.bind(real) : value;
-  },
-});
+export const db: Kysely<Database> = (globalForDb.sightwardDb ??= createDb(databaseUrl, { connectionTimeoutMillis: 3000 }));
