@@ -8,7 +8,7 @@
 // - jsonb columns come back parsed; on insert/update pass JSON text, e.g. `toJson(outline)`
 //   (node-postgres would send a JavaScript array as a PostgreSQL array, not as JSON).
 import type { ColumnType, Generated, GeneratedAlways, Insertable, Selectable, Updateable } from "kysely";
-import type { Ring } from "@/lib/geometry/types";
+import type { Point, Ring } from "@/lib/geometry/types";
 
 /** A jsonb column: read as T, written as JSON text (use toJson). */
 export type Json<T> = ColumnType<T, string, string>;
@@ -121,6 +121,8 @@ export interface GuardsTable {
   contract_hours: Numeric;
   max_hours: ColumnType<number, number | string | undefined, number | string>;
   skills: Generated<string[]>;
+  /** The secret in the guard's personal calendar feed address (0004; a random default). */
+  calendar_token: Generated<string>;
 }
 
 export interface RostersTable {
@@ -131,6 +133,118 @@ export interface RostersTable {
   status: ColumnType<RosterStatus, RosterStatus | undefined, RosterStatus>;
   version: Generated<number>;
   published_at: ColumnType<Date | null, Date | string | null | undefined, Date | string | null>;
+  created_at: ColumnType<Date, Date | string | undefined, Date | string>;
+  /** The published version this one replaced (0004). */
+  supersedes: ColumnType<number | null, number | null | undefined, number | null>;
+  /** Bumped by every manual edit of a draft, so publishing what you loaded can be checked (0004). */
+  revision: Generated<number>;
+  /** The scenario the engine staffed (INTERFACES.md roster input), kept so edits are checked by the same rules. */
+  scenario: ColumnType<unknown, string | null | undefined, string | null>;
+  unfilled: ColumnType<RosterUnfilled[], string | undefined, string>;
+  totals: ColumnType<RosterTotals | null, string | null | undefined, string | null>;
+  violations: ColumnType<RosterViolation[], string | undefined, string>;
+  created_by: ColumnType<number | null, number | null | undefined, number | null>;
+  published_by: ColumnType<number | null, number | null | undefined, number | null>;
+}
+
+/** A post-slot nobody staffs (timestamps as ISO text), with the engine's reason. */
+export interface RosterUnfilled {
+  post: string;
+  start: string;
+  end: string;
+  reason: string;
+}
+
+/** A roster's totals as the engine computes them (lib/scheduling/totals.ts). */
+export interface RosterTotals {
+  postHours: number;
+  filledPostHours: number;
+  unfilledPostHours: number;
+  paidHours: number;
+  overtimeHours: number;
+  cost: number;
+  lowerBoundCost: number;
+  gap: number;
+  [extra: string]: unknown;
+}
+
+/** A broken hard rule (timestamps as ISO text). */
+export interface RosterViolation {
+  rule: string;
+  message: string;
+  guard?: string;
+  post?: string;
+  start?: string;
+  end?: string;
+}
+
+export const JOB_STATUSES = ["queued", "running", "done", "failed"] as const;
+export type JobStatus = (typeof JOB_STATUSES)[number];
+
+export interface JobsTable {
+  id: GeneratedAlways<number>;
+  /** What to do, e.g. 'roster-build', 'roster-publish-mail'. */
+  kind: string;
+  payload: ColumnType<unknown, string | undefined, string>;
+  status: ColumnType<JobStatus, JobStatus | undefined, JobStatus>;
+  /** 0..1 */
+  progress: ColumnType<number, number | undefined, number>;
+  message: ColumnType<string, string | undefined, string>;
+  result: ColumnType<unknown, string | null | undefined, string | null>;
+  attempts: ColumnType<number, number | undefined, number>;
+  locked_at: ColumnType<Date | null, Date | string | null | undefined, Date | string | null>;
+  created_by: ColumnType<number | null, number | null | undefined, number | null>;
+  created_at: ColumnType<Date, Date | string | undefined, Date | string>;
+  finished_at: ColumnType<Date | null, Date | string | null | undefined, Date | string | null>;
+}
+
+export const TIME_OFF_STATUSES = ["requested", "approved", "declined"] as const;
+export type TimeOffStatus = (typeof TIME_OFF_STATUSES)[number];
+
+export interface TimeOffTable {
+  id: GeneratedAlways<number>;
+  guard_id: number;
+  /** First and last day off, inclusive, as the site's calendar dates. */
+  starts_on: DateOnly;
+  ends_on: DateOnly;
+  note: ColumnType<string, string | undefined, string>;
+  status: ColumnType<TimeOffStatus, TimeOffStatus | undefined, TimeOffStatus>;
+  decided_by: ColumnType<number | null, number | null | undefined, number | null>;
+  decided_at: ColumnType<Date | null, Date | string | null | undefined, Date | string | null>;
+  created_at: ColumnType<Date, Date | string | undefined, Date | string>;
+}
+
+export const POST_PLAN_METHODS = ["guaranteed", "fewest"] as const;
+export type PostPlanMethod = (typeof POST_PLAN_METHODS)[number];
+export const POST_PLAN_STATUSES = ["proposed", "approved"] as const;
+export type PostPlanStatus = (typeof POST_PLAN_STATUSES)[number];
+
+/** The conditions a post plan was computed under (rings and points in metres). */
+export interface PostPlanOptions {
+  sightRange: number | null;
+  pinned: Point[];
+  forbidden: Ring[];
+  doubleCover: boolean;
+  [extra: string]: unknown;
+}
+
+/** A room's posts computed at one version of its walls; staffing counts the latest approved one. */
+export interface PostPlansTable {
+  id: GeneratedAlways<number>;
+  room_id: number;
+  exhibition_id: number | null;
+  /** The room's version the plan was computed for; approval needs it to be current. */
+  room_version: number;
+  method: PostPlanMethod;
+  posts: Json<Point[]>;
+  lower_bound: number | null;
+  proven: boolean;
+  /** Seen share of the floor, 0..1. */
+  covered: Numeric;
+  options: Json<PostPlanOptions>;
+  status: ColumnType<PostPlanStatus, PostPlanStatus | undefined, PostPlanStatus>;
+  approved_by: ColumnType<number | null, number | null | undefined, number | null>;
+  approved_at: ColumnType<Date | null, Date | string | null | undefined, Date | string | null>;
   created_at: ColumnType<Date, Date | string | undefined, Date | string>;
 }
 
@@ -154,6 +268,9 @@ export interface Database {
   guards: GuardsTable;
   rosters: RostersTable;
   shifts: ShiftsTable;
+  jobs: JobsTable;
+  time_off: TimeOffTable;
+  post_plans: PostPlansTable;
 }
 
 export type User = Selectable<UsersTable>;
@@ -176,3 +293,6 @@ export type Roster = Selectable<RostersTable>;
 export type NewRoster = Insertable<RostersTable>;
 export type Shift = Selectable<ShiftsTable>;
 export type NewShift = Insertable<ShiftsTable>;
+export type Job = Selectable<JobsTable>;
+export type TimeOff = Selectable<TimeOffTable>;
+export type PostPlanRow = Selectable<PostPlansTable>;
