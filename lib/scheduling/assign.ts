@@ -29,7 +29,20 @@ export function newLoads(scenario: Scenario, weeks: number): Map<string, GuardLo
 }
 
 /** Late = ends at 20:00 or later local time; weekend = Saturday or Sunday (common practice for fairness counts). */
+const kindCache = new WeakMap<Demand, Map<string, { late: boolean; weekend: boolean }>>();
+
 export function shiftKind(scenario: Scenario, demand: Demand, start: number, end: number, day: number): { late: boolean; weekend: boolean } {
+  const cache = kindCache.get(demand) ?? new Map();
+  kindCache.set(demand, cache);
+  const key = `${start}-${end}`;
+  const known = cache.get(key);
+  if (known) return known;
+  const kind = computeShiftKind(scenario, demand, start, end, day);
+  cache.set(key, kind);
+  return kind;
+}
+
+function computeShiftKind(scenario: Scenario, demand: Demand, start: number, end: number, day: number): { late: boolean; weekend: boolean } {
   const endClock = formatClock(scenario.timezone, end);
   const startDate = demand.days[day].date;
   return { late: endClock >= "20:00" || end - start > 0 && endClock < formatClock(scenario.timezone, start), weekend: weekdayIndex(scenario.timezone, startDate) >= 5 };
@@ -68,13 +81,22 @@ export function assignDay(scenario: Scenario, demand: Demand, instances: ShiftIn
   const guards = [...loads.values()];
   const relevant = new Set(scenario.posts.flatMap((p) => p.skills));
   const unassignedCost = FORBIDDEN / 10;
+  // Identical instances (same pattern and class) share one cost row; rows differ only in which instance they are.
+  const rowCache = new Map<string, number[]>();
+  const extraSkills = new Map<string, number>();
   const cost = instances.map((inst) => {
+    const key = `${inst.pattern.start}-${inst.pattern.end}-${inst.pattern.breakOffsets.join(",")}-${inst.skillClass.key}`;
+    const cached = rowCache.get(key);
+    if (cached) return cached;
     const paidMs = inst.pattern.workMs + (rules.paidBreaks ? inst.pattern.breakMs : 0);
     const week = Math.floor(inst.day / 7);
     const kind = shiftKind(scenario, demand, inst.pattern.start, inst.pattern.end, inst.day);
-    const row = guards.map((load) => {
-      if (!hasSkills(load.guard.skills, inst.skillClass.skills)) return FORBIDDEN;
-      if (blockerFor(scenario, demand, load, inst.pattern.start, inst.pattern.end, paidMs)) return FORBIDDEN;
+    const row: number[] = [];
+    for (const load of guards) {
+      if (!hasSkills(load.guard.skills, inst.skillClass.skills) || blockerFor(scenario, demand, load, inst.pattern.start, inst.pattern.end, paidMs)) {
+        row.push(FORBIDDEN);
+        continue;
+      }
       const hoursBefore = load.weekMs[week] / HOUR;
       const paid = paidMs / HOUR;
       const overtime = Math.max(0, hoursBefore + paid - Math.max(hoursBefore, rules.overtimeAfterHours));
@@ -86,12 +108,17 @@ export function assignDay(scenario: Scenario, demand: Demand, instances: ShiftIn
       if (kind.late) c += rules.fairnessWeight * load.late;
       if (kind.weekend) c += rules.fairnessWeight * load.weekend;
       // Keep guards with rare skills for the shifts that need them.
-      const extra = load.guard.skills.filter((s) => relevant.has(s) && !inst.skillClass.skills.includes(s)).length;
-      c += extra * rules.hourlyRate * 0.25;
-      return c;
-    });
+      const extraKey = `${load.guard.id}|${inst.skillClass.key}`;
+      let extra = extraSkills.get(extraKey);
+      if (extra === undefined) {
+        extra = load.guard.skills.filter((s) => relevant.has(s) && !inst.skillClass.skills.includes(s)).length;
+        extraSkills.set(extraKey, extra);
+      }
+      row.push(c + extra * rules.hourlyRate * 0.25);
+    }
     // One "nobody" column per instance keeps the assignment feasible when guards run out.
     for (let k = 0; k < instances.length; k++) row.push(unassignedCost);
+    rowCache.set(key, row);
     return row;
   });
   const choice = assignMinCost(cost, guards.length + instances.length);
@@ -103,4 +130,17 @@ export function assignDay(scenario: Scenario, demand: Demand, instances: ShiftIn
     inst.guard = load.guard.id;
     commitShift(load, Math.floor(inst.day / 7), inst.pattern.start, inst.pattern.end, paidMs, shiftKind(scenario, demand, inst.pattern.start, inst.pattern.end, inst.day));
   });
+}
+
+/** Guard loads rebuilt from finished shifts (for repair and gap filling). */
+export function loadsFromShifts(scenario: Scenario, demand: Demand, shifts: { guard: string; start: number; end: number; segments: { start: number; end: number }[]; breaks: { start: number; end: number }[] }[]): Map<string, GuardLoad> {
+  const loads = newLoads(scenario, Math.ceil(scenario.days / 7));
+  for (const s of [...shifts].sort((a, b) => a.start - b.start)) {
+    const load = loads.get(s.guard);
+    if (!load) continue;
+    const paid = s.segments.reduce((a, x) => a + x.end - x.start, 0) + (scenario.rules.paidBreaks ? s.breaks.reduce((a, x) => a + x.end - x.start, 0) : 0);
+    const day = Math.max(0, demand.dayStarts.findIndex((t, i) => t <= s.start && s.start < (demand.dayStarts[i + 1] ?? Infinity)));
+    commitShift(load, Math.floor(day / 7), s.start, s.end, paid, shiftKind(scenario, demand, s.start, s.end, Math.min(day, demand.days.length - 1)));
+  }
+  return loads;
 }

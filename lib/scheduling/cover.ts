@@ -15,7 +15,7 @@ export interface SkillClass {
 export interface CoverPlan {
   patterns: ShiftPattern[][];
   classes: SkillClass[];
-  /** How many shifts of each pattern and class: counts[day][pattern][class]. */
+  /** How many shifts of each pattern and class on each day. */
   shifts: { day: number; pattern: ShiftPattern; skillClass: SkillClass; count: number }[];
   status: string;
   objective: number;
@@ -47,112 +47,170 @@ export function postSkillSets(scenario: Scenario): string[][] {
 
 const covers = (classSkills: string[], need: string[]) => need.every((s) => classSkills.includes(s));
 
-/** Builds and solves the covering program; the answer says how many guards of each class work each pattern. */
+/**
+ * Builds and solves the covering program one opening day at a time (weekly limits are the assignment's job, where
+ * each guard's own hours are known); days with the same opening and guards share one solve.
+ */
 export async function solveCover(scenario: Scenario, demand: Demand, options: { timeLimit?: number } = {}): Promise<CoverPlan> {
   const began = performance.now();
-  const rules = scenario.rules;
   const classes = skillClasses(scenario);
+  const patterns = demand.days.map((d) => (d.open === null ? [] : dayPatterns(demand, d.day, scenario.rules)));
+  const shifts: CoverPlan["shifts"] = [];
+  const statuses = new Set<string>();
+  let objective = 0;
+  const cache = new Map<string, { counts: Map<string, number>; status: string; objective: number }>();
+  const highs = await loadHighs();
+  for (const d of demand.days) {
+    if (patterns[d.day].length === 0) continue;
+    const model = dayModel(scenario, demand, d.day, patterns[d.day], classes);
+    let answer = cache.get(model.lp);
+    if (!answer) {
+      answer = solveDay(highs, model, options.timeLimit ?? 1.5);
+      cache.set(model.lp, answer);
+    }
+    statuses.add(answer.status);
+    objective += answer.objective;
+    for (const [name, count] of answer.counts) if (count > 0) shifts.push({ day: d.day, ...model.column.get(name)!, count });
+  }
+  return { patterns, classes, shifts, status: [...statuses].join("; ") || "no patterns", objective, ms: performance.now() - began };
+}
+
+interface DayModel {
+  lp: string;
+  column: Map<string, { pattern: ShiftPattern; skillClass: SkillClass }>;
+  columnCost: Map<string, number>;
+  coverRows: { columns: string[]; slacks: string[]; rhs: number }[];
+}
+
+/** The covering program of one day: columns = (pattern, skill class), rows = posts to staff per slot and skill set. */
+function dayModel(scenario: Scenario, demand: Demand, day: number, dayPatterns: ShiftPattern[], classes: SkillClass[]): DayModel {
+  const rules = scenario.rules;
+  const d = demand.days[day];
   const sets = postSkillSets(scenario);
-  const patterns = demand.days.map((d) => (d.open === null ? [] : dayPatterns(demand, d.day, rules)));
   const slotHours = rules.slotMinutes / 60;
   const unfilledPenalty = rules.hourlyRate * (rules.maxShiftHours + 1) * 20 + 1000;
   const rotationPenalty = rules.hourlyRate * slotHours * 2 + 1;
   const rotationMatters = rules.maxHoursAtOnePost < rules.maxShiftHours;
-
   const objective: string[] = [];
   const rows: string[] = [];
   const generals: string[] = [];
-  const bounds: string[] = [];
-  const column = new Map<string, { day: number; pattern: ShiftPattern; skillClass: SkillClass }>();
-  // Columns per day and slot position, per class, for coverage rows.
-  const bySlot: string[][][][] = demand.days.map((d) => d.slots.map(() => classes.map(() => [] as string[])));
-  const byDayClass: string[][] = demand.days.map(() => classes.map(() => []));
-  const paidByWeekClass = new Map<string, string[]>();
+  const column: DayModel["column"] = new Map();
+  const columnCost = new Map<string, number>();
+  const coverRows: DayModel["coverRows"] = [];
+  const bySlot: string[][][] = d.slots.map(() => classes.map(() => [] as string[]));
+  const byClass: string[][] = classes.map(() => []);
+  dayPatterns.forEach((pattern, p) => {
+    classes.forEach((skillClass, c) => {
+      const name = `x_${p}_${c}`;
+      column.set(name, { pattern, skillClass });
+      // A hair of cost per shift prefers fewer, longer shifts among equal-cost covers.
+      const cost = paidHoursOf(pattern, rules) * rules.hourlyRate + 0.01;
+      columnCost.set(name, cost);
+      objective.push(`${fmt(cost)} ${name}`);
+      generals.push(name);
+      for (let o = 0; o < pattern.length; o++) if (worksAt(pattern, o)) bySlot[pattern.first + o][c].push(name);
+      byClass[c].push(name);
+    });
+  });
+  d.slots.forEach((slotIndex, position) => {
+    const slot = demand.slots[slotIndex];
+    const weight = (slot.end - slot.start) / HOUR;
+    sets.forEach((need, s) => {
+      const needed = scenario.posts.filter((p) => covers(p.skills, need)).length;
+      if (needed === 0) return;
+      const terms = classes.flatMap((k, c) => (covers(k.skills, need) ? bySlot[position][c] : []));
+      const slack = `u_${position}_${s}`;
+      objective.push(`${fmt(unfilledPenalty * weight)} ${slack}`);
+      rows.push(`cov_${position}_${s}: ${[...terms, slack].join(" + ")} >= ${needed}`);
+      coverRows.push({ columns: terms, slacks: [slack], rhs: needed });
+      // Rotation needs a spare qualified guard on duty when only some posts ask for a skill.
+      if (rotationMatters && s > 0 && needed < scenario.posts.length) {
+        const spare = `v_${position}_${s}`;
+        objective.push(`${fmt(rotationPenalty)} ${spare}`);
+        rows.push(`rot_${position}_${s}: ${[...terms, slack, spare].join(" + ")} >= ${needed + 1}`);
+        coverRows.push({ columns: terms, slacks: [slack, spare], rhs: needed + 1 });
+      }
+    });
+  });
+  classes.forEach((k, c) => {
+    if (byClass[c].length === 0) return;
+    const free = k.guards.filter((g) => !(demand.unavailable.get(g) ?? []).some((u) => u.start < d.close! && d.open! < u.end)).length;
+    rows.push(`day_${c}: ${byClass[c].join(" + ")} <= ${free}`);
+  });
+  const lp = ["Minimize", ` obj: ${objective.join(" + ")}`, "Subject To", ...rows.map((r) => ` ${r}`), "General", ` ${generals.join(" ")}`, "End", ""].join("\n");
+  return { lp, column, columnCost, coverRows };
+}
 
-  for (const d of demand.days) {
-    patterns[d.day].forEach((pattern, p) => {
-      classes.forEach((skillClass, c) => {
-        const name = `x_${d.day}_${p}_${c}`;
-        column.set(name, { day: d.day, pattern, skillClass });
-        const paid = paidHoursOf(pattern, rules);
-        // A hair of cost per shift prefers fewer, longer shifts among equal-cost covers.
-        objective.push(`${fmt(paid * rules.hourlyRate + 0.01)} ${name}`);
-        generals.push(name);
-        for (let o = 0; o < pattern.length; o++) if (worksAt(pattern, o)) bySlot[d.day][pattern.first + o][c].push(name);
-        byDayClass[d.day][c].push(name);
-        const wk = `${Math.floor(d.day / 7)}_${c}`;
-        const list = paidByWeekClass.get(wk) ?? [];
-        list.push(`${fmt(paid)} ${name}`);
-        paidByWeekClass.set(wk, list);
-      });
-    });
-  }
-  const guardById = new Map(scenario.guards.map((g) => [g.id, g]));
-  for (const d of demand.days) {
-    d.slots.forEach((slotIndex, position) => {
-      const slot = demand.slots[slotIndex];
-      const weight = (slot.end - slot.start) / HOUR;
-      sets.forEach((need, s) => {
-        const needed = scenario.posts.filter((p) => covers(p.skills, need)).length;
-        if (needed === 0) return;
-        const terms = classes.flatMap((k, c) => (covers(k.skills, need) ? bySlot[d.day][position][c] : []));
-        const slack = `u_${slotIndex}_${s}`;
-        objective.push(`${fmt(unfilledPenalty * weight)} ${slack}`);
-        rows.push(`cov_${slotIndex}_${s}: ${[...terms, slack].join(" + ")} >= ${needed}`);
-        // Rotation needs a spare qualified guard on duty when only a few posts ask for a skill.
-        if (rotationMatters && s > 0 && needed < scenario.posts.length) {
-          const spare = `v_${slotIndex}_${s}`;
-          objective.push(`${fmt(rotationPenalty)} ${spare}`);
-          rows.push(`rot_${slotIndex}_${s}: ${[...terms, slack, spare].join(" + ")} >= ${needed + 1}`);
-        }
-      });
-    });
-    classes.forEach((k, c) => {
-      if (byDayClass[d.day][c].length === 0) return;
-      const free = k.guards.filter((g) => !(demand.unavailable.get(g) ?? []).some((u) => d.open !== null && u.start < d.close! && d.open < u.end)).length;
-      rows.push(`day_${d.day}_${c}: ${byDayClass[d.day][c].join(" + ")} <= ${free}`);
-    });
-  }
-  for (const [wk, terms] of paidByWeekClass) {
-    const c = Number(wk.split("_")[1]);
-    const members = classes[c].guards.map((g) => guardById.get(g)!);
-    const max = members.reduce((sum, g) => sum + g.maxHours, 0);
-    const plain = members.reduce((sum, g) => sum + Math.min(g.maxHours, rules.overtimeAfterHours), 0);
-    rows.push(`cap_${wk}: ${terms.join(" + ")} <= ${fmt(max)}`);
-    const over = `o_${wk}`;
-    objective.push(`${fmt(rules.hourlyRate * (rules.overtimeFactor - 1))} ${over}`);
-    rows.push(`ot_${wk}: ${terms.join(" + ")} - ${over} <= ${fmt(plain)}`);
-  }
+type HighsInstance = Awaited<ReturnType<typeof loadHighs>>;
 
-  const shifts: CoverPlan["shifts"] = [];
-  if (column.size === 0) return { patterns, classes, shifts, status: "no patterns", objective: 0, ms: performance.now() - began };
-  const lp = [
-    "Minimize",
-    ` obj: ${objective.join(" + ")}`,
-    "Subject To",
-    ...rows.map((r) => ` ${r}`),
-    "Bounds",
-    ...bounds,
-    "General",
-    ` ${generals.join(" ")}`,
-    "End",
-    "",
-  ].join("\n");
-  const highs = await loadHighs();
-  let solution = highs.solve(lp, { time_limit: options.timeLimit ?? 4, mip_rel_gap: 0.002, output_flag: false });
-  let status = solution.Status;
-  const hasPrimal = Object.values(solution.Columns).some((c) => c.Primal !== undefined);
-  if (!hasPrimal) {
-    // No integer answer in time: solve the LP relaxation and round up (still a cover, slightly dearer).
-    solution = highs.solve(lp.replace(/General\n.*\n/, ""), { output_flag: false });
-    status = `${status}; LP rounded up`;
+/** LP relaxation, rounded and thinned; a short MIP run only when rounding costs more than 1% over the LP. */
+function solveDay(highs: HighsInstance, model: DayModel, timeLimit: number): { counts: Map<string, number>; status: string; objective: number } {
+  const relaxed = highs.solve(model.lp.replace(/General\n.*\n/, ""), { output_flag: false });
+  const rounded = roundCover(relaxed.Columns, model.column, model.columnCost, model.coverRows);
+  let counts = rounded.counts;
+  let status = `LP ${relaxed.Status}, rounded`;
+  let objective = rounded.cost + (relaxed.ObjectiveValue - rounded.lpColumnCost);
+  if (rounded.cost > rounded.lpColumnCost * 1.01 + 1) {
+    const mip = highs.solve(model.lp, { time_limit: timeLimit, mip_rel_gap: 0.005, output_flag: false });
+    if (Object.values(mip.Columns).some((c) => c.Primal !== undefined) && mip.ObjectiveValue < objective) {
+      counts = new Map([...model.column.keys()].map((name) => [name, Math.round(mip.Columns[name]?.Primal ?? 0)]));
+      status = `MIP ${mip.Status}`;
+      objective = mip.ObjectiveValue;
+    }
   }
-  for (const [name, info] of column) {
-    const value = solution.Columns[name]?.Primal ?? 0;
-    const count = hasPrimal ? Math.round(value) : Math.ceil(value - 1e-6);
-    if (count > 0) shifts.push({ ...info, count });
+  return { counts, status, objective };
+}
+
+/** Rounds LP column values up, then removes shifts (dearest first) whose every covering row stays satisfied without them. */
+function roundCover(
+  values: Record<string, { Primal?: number }>,
+  column: Map<string, unknown>,
+  columnCost: Map<string, number>,
+  coverRows: { columns: string[]; slacks: string[]; rhs: number }[],
+): { counts: Map<string, number>; cost: number; lpColumnCost: number } {
+  const counts = new Map<string, number>();
+  let lpColumnCost = 0;
+  for (const name of column.keys()) {
+    const v = values[name]?.Primal ?? 0;
+    lpColumnCost += v * columnCost.get(name)!;
+    counts.set(name, Math.ceil(v - 1e-6));
   }
-  return { patterns, classes, shifts, status, objective: solution.ObjectiveValue, ms: performance.now() - began };
+  const rowsOf = new Map<string, number[]>();
+  coverRows.forEach((row, r) => {
+    for (const c of row.columns) rowsOf.set(c, [...(rowsOf.get(c) ?? []), r]);
+  });
+  const slackOf = coverRows.map((row) => row.slacks.reduce((sum, s) => sum + Math.ceil((values[s]?.Primal ?? 0) - 1e-6), 0));
+  const thin = (start: Map<string, number>) => {
+    const surplus = coverRows.map((row, r) => row.columns.reduce((sum, c) => sum + start.get(c)!, 0) + slackOf[r] - row.rhs);
+    // Repair deficits greedily (most rows helped per unit cost), then thin dearest-first.
+    for (;;) {
+      let best: string | null = null;
+      let bestScore = 0;
+      for (const name of column.keys()) {
+        const helped = (rowsOf.get(name) ?? []).reduce((n, r) => n + (surplus[r] < 0 ? 1 : 0), 0);
+        const score = helped / columnCost.get(name)!;
+        if (score > bestScore) [best, bestScore] = [name, score];
+      }
+      if (!best) break;
+      start.set(best, start.get(best)! + 1);
+      for (const r of rowsOf.get(best) ?? []) surplus[r]++;
+    }
+    const order = [...column.keys()].filter((n) => start.get(n)! > 0).sort((a, b) => columnCost.get(b)! - columnCost.get(a)! || (a < b ? -1 : 1));
+    for (const name of order) {
+      const rows = rowsOf.get(name) ?? [];
+      while (start.get(name)! > 0 && rows.every((r) => surplus[r] >= 1)) {
+        start.set(name, start.get(name)! - 1);
+        for (const r of rows) surplus[r]--;
+      }
+    }
+    let cost = 0;
+    for (const [name, n] of start) cost += n * columnCost.get(name)!;
+    return { counts: start, cost };
+  };
+  const fromCeil = thin(counts);
+  const fromFloor = thin(new Map([...column.keys()].map((name) => [name, Math.floor((values[name]?.Primal ?? 0) + 1e-6)])));
+  const best = fromFloor.cost < fromCeil.cost ? fromFloor : fromCeil;
+  return { counts: best.counts, cost: best.cost, lpColumnCost };
 }
 
 function fmt(value: number): string {

@@ -30,6 +30,13 @@ export interface Demand {
   unavailable: Map<string, { start: number; end: number }[]>;
   /** Start of each scenario day (local midnight) as an instant, plus one more for the end. */
   dayStarts: number[];
+  /** Posts closed for part of the period (a room closing early): no demand there. */
+  closed: Map<string, { start: number; end: number }[]>;
+}
+
+/** True when a post is closed at any moment of [start, end). */
+export function isPostClosed(demand: Demand, post: string, start: number, end: number): boolean {
+  return (demand.closed.get(post) ?? []).some((c) => c.start < end && start < c.end);
 }
 
 /** Opening hours of one date: a dated exception wins over the weekly pattern. */
@@ -67,7 +74,7 @@ export function buildDemand(scenario: Scenario): Demand {
   }
   const unavailable = new Map<string, { start: number; end: number }[]>();
   for (const guard of scenario.guards) unavailable.set(guard.id, guardUnavailability(zone, guard));
-  return { zone, days, slots, posts: scenario.posts, unavailable, dayStarts };
+  return { zone, days, slots, posts: scenario.posts, unavailable, dayStarts, closed: new Map() };
 }
 
 function guardUnavailability(zone: string, guard: Guard): { start: number; end: number }[] {
@@ -79,8 +86,9 @@ function guardUnavailability(zone: string, guard: Guard): { start: number; end: 
 
 /** Post-hours of demand (every post is open every open slot). */
 export function demandPostHours(demand: Demand): number {
-  const slotHours = demand.slots.reduce((sum, s) => sum + (s.end - s.start) / 3_600_000, 0);
-  return slotHours * demand.posts.length;
+  let ms = 0;
+  for (const post of demand.posts) for (const s of demand.slots) if (!isPostClosed(demand, post.id, s.start, s.end)) ms += s.end - s.start;
+  return ms / 3_600_000;
 }
 
 /** True when a guard is unavailable at any moment of [start, end). */

@@ -1,6 +1,6 @@
 // The staffing engine: demand -> covering program (how many guards per shift pattern) -> guards to shifts -> guards to posts
 // slot by slot -> local repair -> explanations, totals and the rule check.
-import { assignDay, newLoads, type ShiftInstance } from "./assign";
+import { assignDay, loadsFromShifts, newLoads, type ShiftInstance } from "./assign";
 import { solveCover } from "./cover";
 import { buildDemand, type Demand } from "./demand";
 import { explainUnfilled } from "./explain";
@@ -10,6 +10,7 @@ import { compareShifts, type Roster, type Shift, type Violation } from "./roster
 import { checkRoster, ruleContext } from "./rules";
 import type { Scenario } from "./scenario";
 import { HOUR } from "./time";
+export { unfilledWithReasons };
 import { computeTotals, type Totals } from "./totals";
 
 export interface RosterResult {
@@ -51,12 +52,7 @@ export async function buildRoster(scenario: Scenario, options: { timeLimit?: num
     for (const e of placement.empty) empty.set(e.slot, [...(empty.get(e.slot) ?? []), e.post]);
   }
   // Trimming and dropping idle time changes loads: rebuild them from the shifts before repair.
-  const repairLoads = newLoads(scenario, Math.ceil(scenario.days / 7));
-  for (const s of [...shifts].sort(compareShifts)) {
-    const load = repairLoads.get(s.guard)!;
-    const paid = s.segments.reduce((a, x) => a + x.end - x.start, 0) + (scenario.rules.paidBreaks ? s.breaks.reduce((a, x) => a + x.end - x.start, 0) : 0);
-    load.shifts.push({ start: s.start, end: s.end, paidMs: paid });
-  }
+  const repairLoads = loadsFromShifts(scenario, demand, shifts);
   const t3 = performance.now();
   fillGaps(scenario, demand, shifts, empty, repairLoads);
   const t4 = performance.now();

@@ -1,5 +1,5 @@
 // Totals of a roster (recomputed from its shifts) and the proven lower bound on the cost of any roster filling the same slots.
-import type { Demand } from "./demand";
+import { demandPostHours, type Demand } from "./demand";
 import { paidMs, type Roster } from "./roster";
 import type { Scenario } from "./scenario";
 import { HOUR } from "./time";
@@ -38,8 +38,7 @@ export function paidByGuardWeek(scenario: Scenario, demand: Demand, roster: Rost
 
 export function computeTotals(scenario: Scenario, demand: Demand, roster: Roster): Totals {
   const rules = scenario.rules;
-  const slotHours = demand.slots.reduce((sum, s) => sum + (s.end - s.start), 0) / HOUR;
-  const postHours = slotHours * scenario.posts.length;
+  const postHours = demandPostHours(demand);
   const unfilledPostHours = roster.unfilled.reduce((sum, u) => sum + (u.end - u.start), 0) / HOUR;
   const filledMs = roster.shifts.reduce((sum, s) => sum + paidMs(s, false), 0);
   const paidHours = roster.shifts.reduce((sum, s) => sum + paidMs(s, rules.paidBreaks), 0) / HOUR;

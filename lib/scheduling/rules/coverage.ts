@@ -1,4 +1,5 @@
 // Hard rule: each post is staffed by exactly one guard in every open slot, or the slot is listed as unfilled with a reason.
+import { isPostClosed } from "../demand";
 import type { Roster, Violation } from "../roster";
 import type { RuleContext } from "./context";
 
@@ -22,10 +23,11 @@ export function checkCoverage(ctx: RuleContext, roster: Roster): Violation[] {
   for (const post of ctx.scenario.posts) {
     const segments = byPost.get(post.id) ?? [];
     for (const s of segments) {
-      if (!openSpans.some(([open, close]) => s.start >= open && s.end <= close))
+      if (!openSpans.some(([open, close]) => s.start >= open && s.end <= close) || isPostClosed(ctx.demand, post.id, s.start, s.end))
         violations.push({ rule: COVERAGE, guard: s.guard, post: post.id, start: s.start, end: s.end, message: `${s.guard} is placed at post ${post.id} from ${ctx.at(s.start)} to ${ctx.at(s.end)}, outside opening hours` });
     }
     for (const slot of ctx.demand.slots) {
+      if (isPostClosed(ctx.demand, post.id, slot.start, slot.end)) continue;
       const here = segments.filter((s) => s.start < slot.end && slot.start < s.end);
       const whole = here.filter((s) => s.start <= slot.start && s.end >= slot.end);
       const isUnfilled = unfilled.has(`${post.id}@${slot.start}`);
