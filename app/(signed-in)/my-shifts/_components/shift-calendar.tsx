@@ -19,7 +19,7 @@ export function ShiftCalendar({ shifts }: { shifts: CalendarShift[] }) {
   }, []);
   if (narrow === null) return <p className="text-sm text-stone-700">Loading the calendar…</p>;
   return (
-    <div className="text-sm [&_.fc-event]:border-ink-700 [&_.fc-event]:bg-ink-600">
+    <div className="text-sm">
       <FullCalendar
         plugins={[timeGridPlugin]}
         initialView={narrow ? "timeGridDay" : "timeGridWeek"}
