@@ -1,4 +1,5 @@
 // Dantzig's set-covering model of shift scheduling (Dantzig 1954), aggregated by day, shift pattern and guard skill class, solved with HiGHS.
+import { writeFileSync } from "node:fs";
 import type { Demand } from "./demand";
 import { loadHighs } from "./highsSolver";
 import { dayPatterns, paidHoursOf, worksAt, type ShiftPattern } from "./patterns";
@@ -65,7 +66,7 @@ export async function solveCover(scenario: Scenario, demand: Demand, options: { 
     const model = dayModel(scenario, demand, d.day, patterns[d.day], classes);
     let answer = cache.get(model.lp);
     if (!answer) {
-      answer = solveDay(highs, model, options.timeLimit ?? 1.5);
+      answer = solveDay(highs, model, options.timeLimit ?? 20);
       cache.set(model.lp, answer);
     }
     statuses.add(answer.status);
@@ -79,7 +80,9 @@ interface DayModel {
   lp: string;
   column: Map<string, { pattern: ShiftPattern; skillClass: SkillClass }>;
   columnCost: Map<string, number>;
-  coverRows: { columns: string[]; slacks: string[]; rhs: number }[];
+  coverRows: { columns: string[]; slacks: string[]; rhs: number; skills: number }[];
+  /** Guards available per skill class that day: sum(columns) <= rhs. */
+  capacityRows: { columns: string[]; rhs: number }[];
 }
 
 /** The covering program of one day: columns = (pattern, skill class), rows = posts to staff per slot and skill set. */
@@ -89,7 +92,8 @@ function dayModel(scenario: Scenario, demand: Demand, day: number, dayPatterns: 
   const sets = postSkillSets(scenario);
   const slotHours = rules.slotMinutes / 60;
   const unfilledPenalty = rules.hourlyRate * (rules.maxShiftHours + 1) * 20 + 1000;
-  const rotationPenalty = rules.hourlyRate * slotHours * 2 + 1;
+  // A lone qualified guard must leave after maxHoursAtOnePost and the post goes empty: nearly as bad as a gap.
+  const rotationPenalty = (unfilledPenalty * slotHours) / 4;
   const rotationMatters = rules.maxHoursAtOnePost < rules.maxShiftHours;
   const objective: string[] = [];
   const rows: string[] = [];
@@ -97,6 +101,7 @@ function dayModel(scenario: Scenario, demand: Demand, day: number, dayPatterns: 
   const column: DayModel["column"] = new Map();
   const columnCost = new Map<string, number>();
   const coverRows: DayModel["coverRows"] = [];
+  const capacityRows: DayModel["capacityRows"] = [];
   const bySlot: string[][][] = d.slots.map(() => classes.map(() => [] as string[]));
   const byClass: string[][] = classes.map(() => []);
   dayPatterns.forEach((pattern, p) => {
@@ -122,13 +127,13 @@ function dayModel(scenario: Scenario, demand: Demand, day: number, dayPatterns: 
       const slack = `u_${position}_${s}`;
       objective.push(`${fmt(unfilledPenalty * weight)} ${slack}`);
       rows.push(`cov_${position}_${s}: ${[...terms, slack].join(" + ")} >= ${needed}`);
-      coverRows.push({ columns: terms, slacks: [slack], rhs: needed });
+      coverRows.push({ columns: terms, slacks: [slack], rhs: needed, skills: need.length });
       // Rotation needs a spare qualified guard on duty when only some posts ask for a skill.
       if (rotationMatters && s > 0 && needed < scenario.posts.length) {
         const spare = `v_${position}_${s}`;
         objective.push(`${fmt(rotationPenalty)} ${spare}`);
         rows.push(`rot_${position}_${s}: ${[...terms, slack, spare].join(" + ")} >= ${needed + 1}`);
-        coverRows.push({ columns: terms, slacks: [slack, spare], rhs: needed + 1 });
+        coverRows.push({ columns: terms, slacks: [slack, spare], rhs: needed + 1, skills: need.length });
       }
     });
   });
@@ -136,9 +141,10 @@ function dayModel(scenario: Scenario, demand: Demand, day: number, dayPatterns: 
     if (byClass[c].length === 0) return;
     const free = k.guards.filter((g) => !(demand.unavailable.get(g) ?? []).some((u) => u.start < d.close! && d.open! < u.end)).length;
     rows.push(`day_${c}: ${byClass[c].join(" + ")} <= ${free}`);
+    capacityRows.push({ columns: byClass[c], rhs: free });
   });
   const lp = ["Minimize", ` obj: ${objective.join(" + ")}`, "Subject To", ...rows.map((r) => ` ${r}`), "General", ` ${generals.join(" ")}`, "End", ""].join("\n");
-  return { lp, column, columnCost, coverRows };
+  return { lp, column, columnCost, coverRows, capacityRows };
 }
 
 type HighsInstance = Awaited<ReturnType<typeof loadHighs>>;
@@ -146,13 +152,15 @@ type HighsInstance = Awaited<ReturnType<typeof loadHighs>>;
 /** LP relaxation, rounded and thinned; a short MIP run only when rounding costs more than 1% over the LP. */
 function solveDay(highs: HighsInstance, model: DayModel, timeLimit: number): { counts: Map<string, number>; status: string; objective: number } {
   const relaxed = highs.solve(model.lp.replace(/General\n.*\n/, ""), { output_flag: false });
-  const rounded = roundCover(relaxed.Columns, model.column, model.columnCost, model.coverRows);
+  const rounded = roundCover(relaxed.Columns, model);
   let counts = rounded.counts;
   let status = `LP ${relaxed.Status}, rounded`;
   let objective = rounded.cost + (relaxed.ObjectiveValue - rounded.lpColumnCost);
-  if (rounded.cost > rounded.lpColumnCost * 1.01 + 1) {
-    const mip = highs.solve(model.lp, { time_limit: timeLimit, mip_rel_gap: 0.005, output_flag: false });
-    if (Object.values(mip.Columns).some((c) => c.Primal !== undefined) && mip.ObjectiveValue < objective) {
+  if (!rounded.feasible || rounded.cost > rounded.lpColumnCost * 1.01 + 1) {
+    // A node limit, not only a time limit, keeps the answer the same on a busy or a quiet machine.
+    if (process.env.SW_DUMP_LP) writeFileSync(`${process.env.SW_DUMP_LP}-${model.lp.length}.lp`, model.lp);
+    const mip = highs.solve(model.lp, { time_limit: timeLimit, mip_max_nodes: 200, mip_rel_gap: 0.005, output_flag: false });
+    if (Object.values(mip.Columns).some((c) => c.Primal !== undefined) && (!rounded.feasible || mip.ObjectiveValue < objective)) {
       counts = new Map([...model.column.keys()].map((name) => [name, Math.round(mip.Columns[name]?.Primal ?? 0)]));
       status = `MIP ${mip.Status}`;
       objective = mip.ObjectiveValue;
@@ -161,13 +169,14 @@ function solveDay(highs: HighsInstance, model: DayModel, timeLimit: number): { c
   return { counts, status, objective };
 }
 
-/** Rounds LP column values up, then removes shifts (dearest first) whose every covering row stays satisfied without them. */
+/** Rounds the LP answer two ways (up, and down plus greedy repair), thins each, keeps the cheaper one that respects guard numbers. */
 function roundCover(
   values: Record<string, { Primal?: number }>,
-  column: Map<string, unknown>,
-  columnCost: Map<string, number>,
-  coverRows: { columns: string[]; slacks: string[]; rhs: number }[],
-): { counts: Map<string, number>; cost: number; lpColumnCost: number } {
+  model: DayModel,
+): { counts: Map<string, number>; cost: number; lpColumnCost: number; feasible: boolean } {
+  const { column, columnCost, coverRows, capacityRows } = model;
+  const capacityOf = new Map<string, number>();
+  capacityRows.forEach((row, r) => row.columns.forEach((c) => capacityOf.set(c, r)));
   const counts = new Map<string, number>();
   let lpColumnCost = 0;
   for (const name of column.keys()) {
@@ -182,18 +191,26 @@ function roundCover(
   const slackOf = coverRows.map((row) => row.slacks.reduce((sum, s) => sum + Math.ceil((values[s]?.Primal ?? 0) - 1e-6), 0));
   const thin = (start: Map<string, number>) => {
     const surplus = coverRows.map((row, r) => row.columns.reduce((sum, c) => sum + start.get(c)!, 0) + slackOf[r] - row.rhs);
-    // Repair deficits greedily (most rows helped per unit cost), then thin dearest-first.
-    for (;;) {
-      let best: string | null = null;
-      let bestScore = 0;
-      for (const name of column.keys()) {
-        const helped = (rowsOf.get(name) ?? []).reduce((n, r) => n + (surplus[r] < 0 ? 1 : 0), 0);
-        const score = helped / columnCost.get(name)!;
-        if (score > bestScore) [best, bestScore] = [name, score];
+    // Repair deficits greedily (most rows helped per unit cost), the most demanding skill sets first.
+    const phases = [...new Set(coverRows.map((r) => r.skills))].sort((a, b) => b - a);
+    for (const phase of phases) {
+      for (;;) {
+        let best: string | null = null;
+        let bestScore = 0;
+        const used = capacityRows.map((row) => row.columns.reduce((sum, c) => sum + start.get(c)!, 0));
+        for (const name of column.keys()) {
+          const cap = capacityOf.get(name);
+          if (cap !== undefined && used[cap] >= capacityRows[cap].rhs) continue;
+          const helped = (rowsOf.get(name) ?? []).reduce((n, r) => n + (surplus[r] < 0 && coverRows[r].skills === phase ? 1 : 0), 0);
+          // Among equal helpers, the class with most guards to spare.
+          const spare = cap === undefined ? 0 : capacityRows[cap].rhs - used[cap];
+          const score = (helped / columnCost.get(name)!) * (1 + 1e-6 * spare);
+          if (score > bestScore) [best, bestScore] = [name, score];
+        }
+        if (!best) break;
+        start.set(best, start.get(best)! + 1);
+        for (const r of rowsOf.get(best) ?? []) surplus[r]++;
       }
-      if (!best) break;
-      start.set(best, start.get(best)! + 1);
-      for (const r of rowsOf.get(best) ?? []) surplus[r]++;
     }
     const order = [...column.keys()].filter((n) => start.get(n)! > 0).sort((a, b) => columnCost.get(b)! - columnCost.get(a)! || (a < b ? -1 : 1));
     for (const name of order) {
@@ -205,12 +222,14 @@ function roundCover(
     }
     let cost = 0;
     for (const [name, n] of start) cost += n * columnCost.get(name)!;
-    return { counts: start, cost };
+    const feasible = surplus.every((x) => x >= 0) && capacityRows.every((row) => row.columns.reduce((sum, c) => sum + start.get(c)!, 0) <= row.rhs);
+    return { counts: start, cost, feasible };
   };
   const fromCeil = thin(counts);
   const fromFloor = thin(new Map([...column.keys()].map((name) => [name, Math.floor((values[name]?.Primal ?? 0) + 1e-6)])));
-  const best = fromFloor.cost < fromCeil.cost ? fromFloor : fromCeil;
-  return { counts: best.counts, cost: best.cost, lpColumnCost };
+  const rank = (x: { cost: number; feasible: boolean }) => (x.feasible ? x.cost : x.cost + 1e12);
+  const best = rank(fromFloor) < rank(fromCeil) ? fromFloor : fromCeil;
+  return { counts: best.counts, cost: best.cost, lpColumnCost, feasible: best.feasible };
 }
 
 function fmt(value: number): string {

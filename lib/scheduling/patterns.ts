@@ -66,6 +66,16 @@ function breakPlacements(length: number, breakSlots: number, rules: Rules, slotM
     const after = length - k - breakSlots;
     if (k <= maxStretch && after <= maxStretch && after >= 1) placements.push(range(k, breakSlots));
   }
+  // The three most central placements: enough freedom for relief cover, a third of the columns.
+  if (placements.length > 3) {
+    const middle = (placements.length - 1) / 2;
+    return placements
+      .map((p, i) => ({ p, d: Math.abs(i - middle) }))
+      .sort((a, b) => a.d - b.d || a.p[0] - b.p[0])
+      .slice(0, 3)
+      .map((x) => x.p)
+      .sort((a, b) => a[0] - b[0]);
+  }
   if (placements.length > 0) return placements;
   // Two breaks for long shifts with short stretches: split the work in three near-equal runs.
   const work = length - 2 * breakSlots;
