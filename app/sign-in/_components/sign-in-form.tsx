@@ -1,12 +1,15 @@
 "use client";
 import { signIn } from "next-auth/react";
-import { useState } from "react";
+import { useEffect, useState } from "react";
 
 const WRONG_CREDENTIALS = "That e-mail and password do not match an account. Check both and try again.";
 
 export function SignInForm({ callbackUrl, initialError }: { callbackUrl: string; initialError: boolean }) {
   const [error, setError] = useState<string | null>(initialError ? WRONG_CREDENTIALS : null);
   const [pending, setPending] = useState(false);
+  // The button waits for the page to be interactive, so a password never goes out in a plain form post.
+  const [interactive, setInteractive] = useState(false);
+  useEffect(() => setInteractive(true), []);
 
   async function submit(event: React.FormEvent<HTMLFormElement>) {
     event.preventDefault();
@@ -34,7 +37,7 @@ export function SignInForm({ callbackUrl, initialError }: { callbackUrl: string;
   }
 
   return (
-    <form onSubmit={submit} noValidate className="space-y-4" aria-describedby={error ? "sign-in-error" : undefined}>
+    <form method="post" onSubmit={submit} noValidate className="space-y-4" aria-describedby={error ? "sign-in-error" : undefined}>
       {error && (
         <p id="sign-in-error" role="alert" className="rounded-md border border-alert-200 bg-alert-50 px-3 py-2 text-sm font-semibold text-alert-700">
           {error}
@@ -48,7 +51,7 @@ export function SignInForm({ callbackUrl, initialError }: { callbackUrl: string;
         <label htmlFor="password" className="field-label">Password</label>
         <input id="password" name="password" type="password" autoComplete="current-password" required className="field-input" />
       </div>
-      <button type="submit" className="button w-full" disabled={pending}>
+      <button type="submit" className="button w-full" disabled={pending || !interactive}>
         {pending ? "Signing in…" : "Sign in"}
       </button>
     </form>

@@ -2,6 +2,7 @@
 import { zodResolver } from "@hookform/resolvers/zod";
 import { useMutation } from "@tanstack/react-query";
 import { useRouter } from "next/navigation";
+import { useEffect, useState } from "react";
 import { useForm } from "react-hook-form";
 import { apiFetch } from "@/lib/api/client";
 import { roleChangeSchema, type RoleChange } from "@/lib/api/user-role";
@@ -47,6 +48,9 @@ export function UsersTable({ users, currentUserId }: { users: UserRow[]; current
 
 function RoleForm({ user }: { user: UserRow }) {
   const router = useRouter();
+  // Until the page is interactive the form cannot send anything, so Save waits for it.
+  const [interactive, setInteractive] = useState(false);
+  useEffect(() => setInteractive(true), []);
   const form = useForm<RoleChange>({ resolver: zodResolver(roleChangeSchema), defaultValues: { role: user.role } });
   const change = useMutation({
     mutationFn: (body: RoleChange) => apiFetch<{ user: UserRow }>(`/api/users/${user.id}`, { method: "PATCH", body }),
@@ -73,7 +77,7 @@ function RoleForm({ user }: { user: UserRow }) {
           <option key={role} value={role}>{ROLE_LABELS[role]}</option>
         ))}
       </select>
-      <button type="submit" className="button-quiet" disabled={!form.formState.isDirty || change.isPending}>
+      <button type="submit" className="button-quiet" disabled={!interactive || change.isPending}>
         {change.isPending ? "Saving…" : "Save"}
       </button>
       <span id={messageId} role="status" className={problem ? "text-sm font-semibold text-alert-700" : "text-sm text-ok-700"}>

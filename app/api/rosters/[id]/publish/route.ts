@@ -1,0 +1,29 @@
+import { NextResponse, type NextRequest } from "next/server";
+import { db } from "@/db";
+import { parseBody, parseParams } from "@/lib/api/parse";
+import { requireRole } from "@/lib/api/require-role";
+import { route } from "@/lib/api/route";
+import { publishDraft } from "@/lib/rosters/publish";
+import { publishRequestSchema, rosterIdSchema } from "@/lib/rosters/schemas";
+import { refusalsAsProblems } from "../../_shared/problem";
+
+type Context = { params: Promise<{ id: string }> };
+
+/**
+ * POST /api/rosters/[id]/publish { revision }: the draft becomes the week's next published version
+ * and every guard on it is mailed (a queued job). 409 when the draft changed since it was loaded.
+ */
+export const POST = route<Context>(async (request: NextRequest, context) => {
+  const user = await requireRole(request, "rosters:publish");
+  const { id } = parseParams(await context.params, rosterIdSchema);
+  const { revision } = await parseBody(request, publishRequestSchema);
+  const publication = await refusalsAsProblems(() => publishDraft(db, { rosterId: id, revision, userId: user.id }));
+  return NextResponse.json(
+    {
+      roster: { id: publication.roster.id, version: publication.roster.version, publishedAt: publication.roster.published_at },
+      supersedes: publication.supersedes,
+      mailJob: { id: publication.mailJobId },
+    },
+    { status: 201 },
+  );
+});

@@ -1,0 +1,24 @@
+import { NextResponse, type NextRequest } from "next/server";
+import { db } from "@/db";
+import { parseBody, parseParams } from "@/lib/api/parse";
+import { requireRole } from "@/lib/api/require-role";
+import { route } from "@/lib/api/route";
+import { reassignInDraft } from "@/lib/rosters/edit";
+import { reassignRequestSchema, rosterIdSchema } from "@/lib/rosters/schemas";
+import { rosterView } from "@/lib/rosters/view";
+import { refusalsAsProblems } from "../../_shared/problem";
+
+type Context = { params: Promise<{ id: string }> };
+
+/**
+ * POST /api/rosters/[id]/reassign { revision, from: { guardId, post, start }, toGuardId }: gives one
+ * segment (or an unfilled post-slot, guardId null) to another guard. 422 with the rule's message when
+ * the change would break a rule, 409 when the draft changed since it was loaded; nothing is written then.
+ */
+export const POST = route<Context>(async (request: NextRequest, context) => {
+  await requireRole(request, "rosters:publish");
+  const { id } = parseParams(await context.params, rosterIdSchema);
+  const body = await parseBody(request, reassignRequestSchema);
+  await refusalsAsProblems(() => reassignInDraft(db, { rosterId: id, revision: body.revision, from: body.from, toGuardId: body.toGuardId }));
+  return NextResponse.json({ roster: await rosterView(db, id) });
+});
