@@ -227,6 +227,11 @@ function isProperCrossing(a: Wall, b: Wall): boolean {
   );
 }
 
+/** Whether a wall in the status passes below point p (p is left of its left-to-right direction). */
+function wallBelow(wall: Wall, p: Point): boolean {
+  return orient(wall.left, wall.right, p) > 0;
+}
+
 /** Thrown inside the sweep to stop at the first bad pair. */
 class CrossingFound {
   constructor(readonly a: Wall, readonly b: Wall) {}
@@ -319,7 +324,7 @@ function findCrossingsAndStrayObstacles(rings: CleanRing[]): RoomProblem[] {
       const from = wall.left;
       if (container[wall.ring] === -2) {
         // The ring's leftmost corner: the nearest wall below tells which ring holds it.
-        const under = status.lastWhere((other) => orient(other.left, other.right, from) > 0);
+        const under = status.lastWhere(wallBelow, from);
         if (under === null) container[wall.ring] = -1;
         else {
           const u = under.item;

@@ -16,6 +16,8 @@ export class SweepStatus<T> {
   private level = 1;
   private seed: number;
   private count = 0;
+  /** Scratch array for insert: the last entry before the new one on each level. */
+  private readonly update: StatusNode<T>[] = new Array(MAX_LEVEL);
 
   constructor(seed = 0x9e3779b9) {
     this.head = { item: undefined as unknown as T, next: new Array(MAX_LEVEL).fill(null), prev: [] };
@@ -46,20 +48,23 @@ export class SweepStatus<T> {
    * The last entry for which `isBefore` holds, or null when there is none. `isBefore` must be
    * monotone along the status: true for a prefix of the entries, false for the rest.
    */
-  lastWhere(isBefore: (item: T) => boolean): StatusNode<T> | null {
+  lastWhere<Q>(isBefore: (item: T, probe: Q) => boolean, probe?: Q): StatusNode<T> | null {
     let x = this.head;
     for (let l = this.level - 1; l >= 0; l--) {
-      for (let n = x.next[l]; n !== null && isBefore(n.item); n = x.next[l]) x = n;
+      for (let n = x.next[l]; n !== null && isBefore(n.item, probe as Q); n = x.next[l]) x = n;
     }
     return x === this.head ? null : x;
   }
 
-  /** Insert `item` right after the entries for which `isBefore` holds (monotone, as in lastWhere). */
-  insert(item: T, isBefore: (other: T) => boolean): StatusNode<T> {
-    const update: StatusNode<T>[] = new Array(MAX_LEVEL);
+  /**
+   * Insert `item` right after the entries for which `isBefore` holds (monotone, as in lastWhere).
+   * `probe` is passed to isBefore, so hot loops need not build a closure per call.
+   */
+  insert<Q>(item: T, isBefore: (other: T, probe: Q) => boolean, probe?: Q): StatusNode<T> {
+    const update = this.update;
     let x = this.head;
     for (let l = this.level - 1; l >= 0; l--) {
-      for (let n = x.next[l]; n !== null && isBefore(n.item); n = x.next[l]) x = n;
+      for (let n = x.next[l]; n !== null && isBefore(n.item, probe as Q); n = x.next[l]) x = n;
       update[l] = x;
     }
     const level = this.randomLevel();

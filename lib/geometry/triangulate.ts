@@ -7,7 +7,7 @@
 // Ties in y are broken by x (isAbove), every sign comes from exact predicates, and collinear
 // vertices stay corners of strictly positive triangles: n + 2h - 2 triangles in all.
 import type { Point, Room, Triangulation } from "./types";
-import { compareTopDown, isAbove, orient } from "./predicates";
+import { isAbove, orient } from "./predicates";
 import { SweepStatus, type StatusNode } from "./sweep-status";
 
 const enum Corner {
@@ -67,7 +67,16 @@ export function triangulate(room: Room): Triangulation {
 export function monotoneDiagonals(graph: RoomGraph): [number, number][] {
   const { points, next, prev } = graph;
   const n = points.length;
-  const order = Array.from({ length: n }, (_, i) => i).sort((a, b) => compareTopDown(points[a], points[b]));
+  const xs = new Float64Array(n);
+  const ys = new Float64Array(n);
+  for (let v = 0; v < n; v++) {
+    xs[v] = points[v][0];
+    ys[v] = points[v][1];
+  }
+  // Top-down sweep order (isAbove): y descending, ties by x ascending.
+  const order = new Int32Array(n);
+  for (let v = 0; v < n; v++) order[v] = v;
+  order.sort((a, b) => ys[b] - ys[a] || xs[a] - xs[b]);
   const kind = new Uint8Array(n);
   for (let v = 0; v < n; v++) {
     const prevAbove = isAbove(points[prev[v]], points[v]);
@@ -83,14 +92,15 @@ export function monotoneDiagonals(graph: RoomGraph): [number, number][] {
   const nodeOf: (StatusNode<number> | null)[] = new Array(n).fill(null);
   const helper = new Int32Array(n).fill(-1);
   const diagonals: [number, number][] = [];
-  const leftOf = (v: number) => (wall: number) => orient(points[wall], points[next[wall]], points[v]) > 0;
+  // One comparison function for the whole sweep (no closure per corner): is this wall left of v?
+  const leftOf = (wall: number, v: number) => orient(points[wall], points[next[wall]], points[v]) > 0;
   const wallLeftOf = (v: number): number => {
-    const node = status.lastWhere(leftOf(v));
+    const node = status.lastWhere(leftOf, v);
     if (node === null) throw new Error(`triangulate: no wall left of corner ${v}; is the room valid and normalised?`);
     return node.item;
   };
   const insertWall = (v: number) => {
-    nodeOf[v] = status.insert(v, leftOf(v));
+    nodeOf[v] = status.insert(v, leftOf, v);
     helper[v] = v;
   };
   const removeWall = (wall: number) => {
@@ -141,11 +151,15 @@ export function monotoneDiagonals(graph: RoomGraph): [number, number][] {
   return diagonals;
 }
 
+/** 0 for directions from the centre in the upper half-plane (with +x), 1 for the lower (with -x). */
+function halfPlane(centre: Point, p: Point): number {
+  return p[1] > centre[1] || (p[1] === centre[1] && p[0] > centre[0]) ? 0 : 1;
+}
+
 /** Half-plane then exact orientation: sorts directions around a centre counter-clockwise from +x. */
 function angularCompare(centre: Point, a: Point, b: Point): number {
-  const half = (p: Point) => (p[1] > centre[1] || (p[1] === centre[1] && p[0] > centre[0]) ? 0 : 1);
-  const ha = half(a);
-  const hb = half(b);
+  const ha = halfPlane(centre, a);
+  const hb = halfPlane(centre, b);
   if (ha !== hb) return ha - hb;
   return -orient(centre, a, b);
 }
@@ -178,21 +192,53 @@ export function monotonePieces(graph: RoomGraph, diagonals: [number, number][]):
   for (let v = 0; v < n; v++) add(v, next[v]);
   for (const [a, b] of diagonals) add(a, b);
 
-  // Sort each corner's neighbours counter-clockwise; remember where each half-edge sits.
-  const slot = new Map<number, number>();
+  // Sort each corner's neighbours counter-clockwise.
+  const source = new Int32Array(offset[n]);
   for (let v = 0; v < n; v++) {
     const from = offset[v];
     const to = offset[v + 1];
-    const around = Array.from(target.subarray(from, to)).sort((a, b) => angularCompare(points[v], points[a], points[b]));
-    for (let k = 0; k < around.length; k++) {
-      target[from + k] = around[k];
-      slot.set(v * n + around[k], from + k);
+    source.fill(v, from, to);
+    if (to - from <= 12) {
+      // Insertion sort: corners rarely have more than a handful of edges.
+      const centre = points[v];
+      for (let i = from + 1; i < to; i++) {
+        const w = target[i];
+        let j = i - 1;
+        while (j >= from && angularCompare(centre, points[target[j]], points[w]) > 0) {
+          target[j + 1] = target[j];
+          j--;
+        }
+        target[j + 1] = w;
+      }
+    } else {
+      const around = Array.from(target.subarray(from, to)).sort((a, b) => angularCompare(points[v], points[a], points[b]));
+      target.set(around, from);
     }
   }
+  // Twin of each half-edge (the same edge walked the other way): a scan of the far corner's few
+  // neighbours; corners with many (a fan of diagonals) get a lookup table so this stays linear.
+  const twin = new Int32Array(offset[n]);
+  const wide = new Map<number, Map<number, number>>();
+  const slotOf = (v: number, u: number): number => {
+    const from = offset[v];
+    const to = offset[v + 1];
+    if (to - from <= 16) {
+      for (let k = from; k < to; k++) if (target[k] === u) return k;
+      throw new Error("triangulate: an edge without its twin; is the room valid?");
+    }
+    let table = wide.get(v);
+    if (table === undefined) {
+      table = new Map();
+      for (let k = from; k < to; k++) table.set(target[k], k);
+      wide.set(v, table);
+    }
+    return table.get(u)!;
+  };
+  for (let e = 0; e < offset[n]; e++) twin[e] = slotOf(target[e], source[e]);
 
   const visited = new Uint8Array(offset[n]);
-  // The far side of every wall is outside the floor.
-  for (let v = 0; v < n; v++) visited[slot.get(next[v] * n + v)!] = 1;
+  // The far side of every wall is outside the floor: mark half-edges running against ring order.
+  for (let e = 0; e < offset[n]; e++) if (next[target[e]] === source[e]) visited[e] = 1;
   const pieces: number[][] = [];
   for (let v = 0; v < n; v++) {
     for (let k = offset[v]; k < offset[v + 1]; k++) {
@@ -205,7 +251,7 @@ export function monotonePieces(graph: RoomGraph, diagonals: [number, number][]):
         piece.push(from);
         const to = target[edge];
         // Next edge: the neighbour of `to` just clockwise from `from`.
-        const back = slot.get(to * n + from)!;
+        const back = twin[edge];
         const nextEdge = back === offset[to] ? offset[to + 1] - 1 : back - 1;
         from = to;
         edge = nextEdge;
@@ -268,7 +314,7 @@ export function triangulateMonotonePiece(points: Point[], piece: number[], out: 
     const topIndex = stack[stack.length - 1];
     if ((chain[j] & chain[topIndex]) === 0) {
       // Opposite chains: u sees every corner on the stack; fan them all from u.
-      fanFrom(points, out, u, chain[j], stack.map((i) => sorted[i]));
+      fanFrom(points, out, u, chain[j], stack, sorted);
       stack.length = 0;
       stack.push(j - 1, j);
     } else {
@@ -288,14 +334,21 @@ export function triangulateMonotonePiece(points: Point[], piece: number[], out: 
   // The bottom corner sees what is left on the stack.
   const lastOnStack = stack[stack.length - 1];
   const bottomChain = chain[lastOnStack] === LEFT ? RIGHT : LEFT;
-  fanFrom(points, out, sorted[m - 1], bottomChain, stack.map((i) => sorted[i]));
+  fanFrom(points, out, sorted[m - 1], bottomChain, stack, sorted);
 }
 
 /** Triangles from corner u (on chain `side`) to each consecutive pair of the stacked corners. */
-function fanFrom(points: Point[], out: [number, number, number][], u: number, side: number, stacked: number[]): void {
-  for (let i = 0; i + 1 < stacked.length; i++) {
-    const upper = stacked[i];
-    const lower = stacked[i + 1];
+function fanFrom(
+  points: Point[],
+  out: [number, number, number][],
+  u: number,
+  side: number,
+  stack: number[],
+  sorted: Int32Array,
+): void {
+  for (let i = 0; i + 1 < stack.length; i++) {
+    const upper = sorted[stack[i]];
+    const lower = sorted[stack[i + 1]];
     if (side === LEFT) pushTriangle(points, out, u, lower, upper);
     else pushTriangle(points, out, u, upper, lower);
   }
