@@ -5,7 +5,7 @@ import { seedDemoMuseum } from "../db/seed/index";
 
 const db = createDb(databaseUrl(), { max: 1 });
 try {
-  const report = await seedDemoMuseum(db, { ifEmpty: process.argv.includes("--if-empty") });
+  const report = await seedDemoMuseum(db, { ifEmpty: process.argv.includes("--if-empty"), postPlans: true });
   if (report === null) {
     console.error("seed: the database already has users; left as it is");
   } else {

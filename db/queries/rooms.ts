@@ -1,6 +1,7 @@
 // Rooms as the room page and its API read and write them: the walls with the site's opening hours
 // and the exhibitions the room is part of, and the optimistic-concurrency save of new walls.
 import type { Kysely } from "kysely";
+import { db as appDb } from "../index";
 import { toJson, type Database, type OpeningHours } from "../schema";
 import type { Ring } from "../../lib/geometry/types";
 
@@ -28,7 +29,7 @@ export interface RoomDetail {
 }
 
 /** One room with its floor, site and exhibitions, or null when there is no such room. */
-export async function roomDetail(db: Kysely<Database>, roomId: number): Promise<RoomDetail | null> {
+export async function roomDetail(roomId: number, db: Kysely<Database> = appDb): Promise<RoomDetail | null> {
   const row = await db
     .selectFrom("rooms")
     .innerJoin("floors", "floors.id", "rooms.floor_id")
@@ -103,10 +104,10 @@ export type RoomSave =
  * = expected), bumping the version; otherwise writes nothing and says why.
  */
 export async function saveRoomWalls(
-  db: Kysely<Database>,
   roomId: number,
   change: { name?: string; outline: Ring; obstacles: Ring[] },
   expectedVersion: number,
+  db: Kysely<Database> = appDb,
 ): Promise<RoomSave> {
   const updated = await db
     .updateTable("rooms")

@@ -6,6 +6,7 @@ import { sql, type Kysely, type Transaction } from "kysely";
 import { toJson, type Database, type Role } from "../schema";
 import { DEMO_ACCOUNTS, DEMO_PASSWORD } from "./accounts";
 import { EXHIBITION, FLOORS, GUARDS, SITE } from "./museum";
+import { seedPostPlans } from "./post-plans";
 
 export { DEMO_ACCOUNTS, DEMO_PASSWORD } from "./accounts";
 export { SITE, FLOORS, EXHIBITION, GUARDS, SKILLS } from "./museum";
@@ -19,6 +20,8 @@ export interface SeedReport {
   exhibitions: number;
   exhibitionRooms: number;
   guards: number;
+  /** Approved post plans added (only with the postPlans option). */
+  postPlans?: number;
 }
 
 async function findOrInsert<T>(find: () => Promise<T | undefined>, insert: () => Promise<T>): Promise<[T, boolean]> {
@@ -148,10 +151,13 @@ async function seedIn(trx: Transaction<Database>, passwordHash: string): Promise
  * Seeds the demo museum in one transaction (all or nothing), serialised by an advisory lock so
  * two seeders never race. With `ifEmpty`, does nothing when any user exists.
  */
-export async function seedDemoMuseum(db: Kysely<Database>, options: { ifEmpty?: boolean } = {}): Promise<SeedReport | null> {
+export async function seedDemoMuseum(
+  db: Kysely<Database>,
+  options: { ifEmpty?: boolean; postPlans?: boolean } = {},
+): Promise<SeedReport | null> {
   // One hash for every seeded account keeps the seed fast (bcrypt cost 10: ~70 ms per hash).
   const passwordHash = await bcrypt.hash(DEMO_PASSWORD, 10);
-  return db.transaction().execute(async (trx) => {
+  const report = await db.transaction().execute(async (trx) => {
     await sql`select pg_advisory_xact_lock(hashtext('sightward demo seed'))`.execute(trx);
     if (options.ifEmpty) {
       const anyUser = await trx.selectFrom("users").select("id").limit(1).executeTakeFirst();
@@ -159,4 +165,10 @@ export async function seedDemoMuseum(db: Kysely<Database>, options: { ifEmpty?: 
     }
     return seedIn(trx, passwordHash);
   });
+  // Post plans run the planner (seconds), so they come after the museum, in their own transaction.
+  if (options.postPlans) {
+    const added = await seedPostPlans(db);
+    if (report) report.postPlans = added;
+  }
+  return report;
 }
