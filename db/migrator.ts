@@ -31,7 +31,9 @@ export class MigrationFolderProvider implements MigrationProvider {
 }
 
 export function migratorFor(db: Kysely<any>): Migrator {
-  return new Migrator({ db, provider: new MigrationFolderProvider() });
+  // Several engineers add migrations at once, so a database may have run 0004 before 0003 landed:
+  // apply whatever is missing instead of refusing (each migration must stand on its own).
+  return new Migrator({ db, provider: new MigrationFolderProvider(), allowUnorderedMigrations: true });
 }
 
 /** Applies every pending migration; throws with the failing migration's name and reason. */

@@ -5,7 +5,7 @@
 ROOT=${ROOT:-$(cd "$(dirname "${BASH_SOURCE[0]}")/../.." && pwd)}
 export ROOT
 
-say() { printf '%s\n' "[sightward] $*" >&2; }
+say() { printf '%s\n' "[sightward] ${SIGHTWARD_DEBUG:+$(date +%T) $$ }$*" >&2; }
 die() { say "error: $*"; exit 1; }
 
 is_root() { [ "$(id -u)" -eq 0 ]; }
@@ -21,7 +21,7 @@ port_holder() {
   line=$(ss -ltnpH "sport = :$1" 2>/dev/null | head -n1 || true)
   if [[ $line =~ pid=([0-9]+) ]]; then
     local pid=${BASH_REMATCH[1]}
-    printf 'pid %s (%s)' "$pid" "$(tr '\0' ' ' <"/proc/$pid/cmdline" 2>/dev/null | cut -c1-60)"
+    printf 'pid %s (%s)' "$pid" "$(tr '\0' ' ' <"/proc/$pid/cmdline" 2>/dev/null | cut -c1-60 | sed 's/ *$//')"
   else
     printf 'another program'
   fi

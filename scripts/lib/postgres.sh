@@ -157,6 +157,7 @@ pg_start() {
 pg_release() {
   exec 8>"$PG_RUN/lock"
   flock 8
+  [ -n "${SIGHTWARD_DEBUG:-}" ] && say "release by $$; users: $(ls "$PG_RUN/users" | tr "\n" " ")"
   rm -f "$PG_RUN/users/$$"
   if [ "$(pg_live_users)" -eq 0 ]; then
     pg_stop_server

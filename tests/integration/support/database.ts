@@ -41,6 +41,13 @@ export async function withScratchDatabase<T>(
     return await use(scratch, scratchUrl);
   } finally {
     await scratch.destroy();
+    // The pool's sessions end a moment after destroy(); wait for them so `with (force)` never
+    // has to cut one off (a cut-off session raises an error in the closing client).
+    for (let waited = 0; waited < 5000; waited += 50) {
+      const { rows } = await sql<{ n: string }>`select count(*) as n from pg_stat_activity where datname = ${name}`.execute(admin);
+      if (Number(rows[0].n) === 0) break;
+      await new Promise((resolve) => setTimeout(resolve, 50));
+    }
     await sql`drop database if exists ${sql.id(name)} with (force)`.execute(admin);
     await admin.destroy();
   }
