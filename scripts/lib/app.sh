@@ -25,7 +25,7 @@ build_is_current() {
   [ -s "$ROOT/.next/BUILD_ID" ] || return 1
   local newer
   newer=$(cd "$ROOT" && find app components lib db fonts public styles middleware.ts proxy.ts instrumentation.ts \
-    next.config.mjs next.config.ts tailwind.config.ts postcss.config.mjs postcss.config.js tsconfig.json package-lock.json \
+    next.config.mjs next.config.ts tailwind.config.ts postcss.config.mjs postcss.config.js tsconfig.json package.json package-lock.json \
     -newer .next/BUILD_ID -type f -print -quit 2>/dev/null || true)
   [ -z "$newer" ]
 }
