@@ -1,5 +1,4 @@
 // Dantzig's set-covering model of shift scheduling (Dantzig 1954), aggregated by day, shift pattern and guard skill class, solved with HiGHS.
-import { writeFileSync } from "node:fs";
 import type { Demand } from "./demand";
 import { loadHighs } from "./highsSolver";
 import { dayPatterns, paidHoursOf, worksAt, type ShiftPattern } from "./patterns";
@@ -158,7 +157,6 @@ function solveDay(highs: HighsInstance, model: DayModel, timeLimit: number): { c
   let objective = rounded.cost + (relaxed.ObjectiveValue - rounded.lpColumnCost);
   if (!rounded.feasible || rounded.cost > rounded.lpColumnCost * 1.01 + 1) {
     // A node limit, not only a time limit, keeps the answer the same on a busy or a quiet machine.
-    if (process.env.SW_DUMP_LP) writeFileSync(`${process.env.SW_DUMP_LP}-${model.lp.length}.lp`, model.lp);
     const mip = highs.solve(model.lp, { time_limit: timeLimit, mip_max_nodes: 200, mip_rel_gap: 0.005, output_flag: false });
     if (Object.values(mip.Columns).some((c) => c.Primal !== undefined) && (!rounded.feasible || mip.ObjectiveValue < objective)) {
       counts = new Map([...model.column.keys()].map((name) => [name, Math.round(mip.Columns[name]?.Primal ?? 0)]));
