@@ -26,10 +26,10 @@ pg_ensure_installed() {
   id postgres >/dev/null 2>&1 || die "the postgres system user is missing (it comes with Debian's postgresql package)"
 }
 
-# Run a PostgreSQL program as the cluster owner.
+# Run a PostgreSQL program as the cluster owner, from / (the owner may not reach the checkout).
 as_pg_owner() {
   if is_root; then
-    runuser -u postgres -- "$@"
+    (cd / && runuser -u postgres -- "$@")
   else
     "$@"
   fi
