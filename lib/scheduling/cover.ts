@@ -157,7 +157,7 @@ function solveDay(highs: HighsInstance, model: DayModel, timeLimit: number): { c
   let objective = rounded.cost + (relaxed.ObjectiveValue - rounded.lpColumnCost);
   if (!rounded.feasible || rounded.cost > rounded.lpColumnCost * 1.01 + 1) {
     // A node limit, not only a time limit, keeps the answer the same on a busy or a quiet machine.
-    const mip = highs.solve(model.lp, { time_limit: timeLimit, mip_max_nodes: 200, mip_rel_gap: 0.005, output_flag: false });
+    const mip = highs.solve(model.lp, { time_limit: timeLimit, mip_max_nodes: 100, mip_rel_gap: 0.01, output_flag: false });
     if (Object.values(mip.Columns).some((c) => c.Primal !== undefined) && (!rounded.feasible || mip.ObjectiveValue < objective)) {
       counts = new Map([...model.column.keys()].map((name) => [name, Math.round(mip.Columns[name]?.Primal ?? 0)]));
       status = `MIP ${mip.Status}`;

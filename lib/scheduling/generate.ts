@@ -1,6 +1,7 @@
 // Invented scenarios for tests and benchmarks (demo data only): a museum week with n posts and m guards.
 import type { Scenario } from "./scenario";
 import { scenarioSchema } from "./scenario";
+import { addLocalDays } from "./time";
 
 export interface GeneratedOptions {
   posts: number;
@@ -13,6 +14,8 @@ export interface GeneratedOptions {
   paidBreaks?: boolean;
   slotMinutes?: 30 | 60;
   timezone?: string;
+  /** Every n-th guard is on leave for one day of the week (a different day for each). */
+  leaveEvery?: number;
 }
 
 export function generateScenario(o: GeneratedOptions): Scenario {
@@ -32,7 +35,14 @@ export function generateScenario(o: GeneratedOptions): Scenario {
       contractHours: 40,
       maxHours: 48,
       skills: i < skilledGuards ? ["high-value"] : [],
+      unavailable: o.leaveEvery && i % o.leaveEvery === 0 ? [leaveDay(o, Math.floor(i / o.leaveEvery) % (o.days ?? 7))] : [],
     })),
     rules: { paidBreaks: o.paidBreaks ?? false, slotMinutes: o.slotMinutes ?? 60 },
   });
+}
+
+function leaveDay(o: GeneratedOptions, day: number): { start: string; end: string } {
+  const zone = o.timezone ?? "Europe/Berlin";
+  const start = o.start ?? "2027-03-22";
+  return { start: `${addLocalDays(zone, start, day)}T00:00`, end: `${addLocalDays(zone, start, day + 1)}T00:00` };
 }

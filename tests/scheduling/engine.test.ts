@@ -6,7 +6,7 @@ import { buildDemand } from "@/lib/scheduling/demand";
 import { buildRoster } from "@/lib/scheduling/engine";
 import { generateScenario } from "@/lib/scheduling/generate";
 import { resultToJson } from "@/lib/scheduling/output";
-import { paidMs } from "@/lib/scheduling/roster";
+import { paidMs, type Shift } from "@/lib/scheduling/roster";
 import { checkRoster } from "@/lib/scheduling/rules";
 import { parseScenario, type Scenario } from "@/lib/scheduling/scenario";
 import { lowerBound } from "@/lib/scheduling/totals";
@@ -20,7 +20,7 @@ function parse(input: unknown): Scenario {
 }
 
 /** Totals recomputed here from the shifts alone, the way INTERFACES.md defines them. */
-function recompute(s: Scenario, shifts: { guard: string; start: number; segments: { start: number; end: number }[]; breaks: { start: number; end: number }[]; end: number }[]) {
+function recompute(s: Scenario, shifts: Shift[]) {
   const paid = shifts.reduce((sum, sh) => sum + paidMs(sh, s.rules.paidBreaks), 0) / HOUR;
   const weekStart = buildDemand(s).dayStarts;
   const perGuardWeek = new Map<string, number>();
