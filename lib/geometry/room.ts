@@ -256,11 +256,13 @@ function findCrossingsAndStrayObstacles(rings: CleanRing[]): RoomProblem[] {
     if (!samePoint(a.p, b.p)) continue;
     if (a.ring === b.ring) {
       const [i, j] = a.index < b.index ? [a.index, b.index] : [b.index, a.index];
-      const numbers = rings[a.ring].numbers;
+      const ring = rings[a.ring];
+      const m = ring.points.length;
+      const leaving = (k: number) => `${ring.lastNumbers[k]}-${ring.numbers[(k + 1) % m]}`;
       return [
         {
           code: a.ring === 0 ? "self-intersection" : "obstacle-crossing",
-          message: `vertices ${numbers[i]} and ${numbers[j]} of ${ringName(a.ring)} are the same point ${formatPoint(a.p)}; walls may meet only at the corner they share`,
+          message: `walls ${leaving(i)} and ${leaving(j)} of ${ringName(a.ring)} touch at ${formatPoint(a.p)}: vertices ${ring.numbers[i]} and ${ring.numbers[j]} are the same point`,
           at: a.p,
         },
       ];

@@ -71,6 +71,15 @@ describe("validateRoom messages", () => {
     expect(problems[0].message).toContain("walls 2-3 and 5-6");
   });
 
+  it("names the walls that meet at a corner drawn twice", () => {
+    const problems = validateRoom({ outline: [[0, 0], [4, 0], [2, 2], [4, 4], [0, 4], [2, 2]], obstacles: [] });
+    expect(problems[0]).toMatchObject({
+      code: "self-intersection",
+      message: "walls 3-4 and 6-1 of the outline touch at (2.0, 2.0): vertices 3 and 6 are the same point",
+      at: [2, 2],
+    });
+  });
+
   it("reports non-finite and far-away coordinates with their vertex", () => {
     expect(validateRoom({ outline: [[0, 0], [NaN, 1], [1, 1]], obstacles: [] })[0]).toMatchObject({
       code: "non-finite",

@@ -1,0 +1,152 @@
+// Triangulation speed: lib/geometry/triangulate.ts against earcut (the npm triangulation package,
+// named peer), measured in the same run on the same rings. Families: random star-shaped polygons,
+// the AGPLIB benchmark polygons (AGPLIB, Univ. of Campinas), and adversarial shapes (Chvátal combs,
+// spirals, orthogonal rooms with every metre marked). Reports median time per run, the ratio to
+// earcut, and the growth from n to 10n (n log n growth is about 11-13x per 10x; quadratic is 100x).
+import earcut, { flatten } from "earcut";
+import { prepareRoom } from "../../lib/geometry/room";
+import { triangulate } from "../../lib/geometry/triangulate";
+import { comb } from "../../lib/guarding/comb";
+import type { Room } from "../../lib/geometry/types";
+import { seededRandom, type PlainRoom } from "../geometry/support/oracle";
+import { orthogonalRoom, spiralRoom, starRoom } from "../geometry/support/shapes";
+import { agplibPolygons, asRoom } from "../geometry/support/agplib";
+
+/** CPU milliseconds of this process (user + system): steadier than wall time on a busy machine. */
+function cpuNow(): number {
+  const u = process.cpuUsage();
+  return (u.user + u.system) / 1000;
+}
+
+/**
+ * Median CPU milliseconds per call of each contender, measured in alternating rounds so both see
+ * the same machine load; each round repeats a call until it has used at least 20 ms of CPU.
+ */
+function timeBoth(ours: () => void, theirs: () => void, rounds = 5): [number, number] {
+  const round = (work: () => void): number => {
+    const t0 = cpuNow();
+    let calls = 0;
+    let used = 0;
+    do {
+      work();
+      calls++;
+      used = cpuNow() - t0;
+    } while (used < 20);
+    return used / calls;
+  };
+  const a: number[] = [];
+  const b: number[] = [];
+  for (let r = 0; r < rounds; r++) {
+    a.push(round(ours));
+    b.push(round(theirs));
+    if (a[0] > 2000 || b[0] > 2000) break; // one slow call is measurement enough
+  }
+  const median = (xs: number[]) => xs.sort((x, y) => x - y)[Math.floor(xs.length / 2)];
+  return [median(a), median(b)];
+}
+
+interface Case {
+  family: string;
+  n: number;
+  rooms: Room[];
+}
+
+function prepared(input: PlainRoom): Room {
+  const result = prepareRoom(input, { maxVertices: 1e7 });
+  if (!result.ok) throw new Error(result.problems[0].message);
+  return result.room;
+}
+
+/** A valid star room of n corners (retry seeds: a gap over half a turn can cross itself). */
+function validStar(n: number, seed: number): Room {
+  for (let s = seed; ; s++) {
+    const result = prepareRoom(starRoom(seededRandom(s), n), { maxVertices: 1e7 });
+    if (result.ok) return result.room;
+  }
+}
+
+function measure(c: Case): { ours: number; earcut: number; triangles: number; earcutTriangles: number } {
+  const inputs = c.rooms.map((room) => flatten([room.outline, ...room.obstacles]));
+  // Warm up both (JIT) on the same input before timing.
+  for (let i = 0; i < (c.n > 20_000 ? 1 : 5); i++) {
+    c.rooms.forEach((room) => triangulate(room));
+    inputs.forEach((d) => earcut(d.vertices, d.holes, d.dimensions));
+  }
+  let triangles = 0;
+  let earcutTriangles = 0;
+  const [ours, theirs] = timeBoth(
+    () => {
+      triangles = 0;
+      for (const room of c.rooms) triangles += triangulate(room).triangles.length;
+    },
+    () => {
+      earcutTriangles = 0;
+      for (const d of inputs) earcutTriangles += earcut(d.vertices, d.holes, d.dimensions).length / 3;
+    },
+  );
+  return { ours, earcut: theirs, triangles, earcutTriangles };
+}
+
+const fmt = (ms: number) => (ms < 1 ? ms.toFixed(3) : ms < 100 ? ms.toFixed(2) : ms.toFixed(0));
+
+export default async function triangulationBench(): Promise<string> {
+  const sizes = [100, 1_000, 10_000, 100_000];
+  const families: { family: string; make: (n: number) => Room }[] = [
+    { family: "random star polygon", make: (n) => validStar(n, n) },
+    { family: "comb (adversarial)", make: (n) => prepared(comb(Math.round(n / 3))) },
+    { family: "spiral (adversarial)", make: (n) => prepared(spiralRoom(n, Math.max(2, Math.round(Math.sqrt(n) / 4)))) },
+    {
+      family: "orthogonal, every metre a corner",
+      make: (n) => {
+        // Columns chosen so the outline has about n corners.
+        for (let columns = Math.max(1, Math.round(n / 10)); ; columns = Math.round(columns * 1.1) + 1) {
+          const room = orthogonalRoom(seededRandom(n), columns, { everyMetre: true, height: 8 });
+          if (room.outline.length >= n * 0.9) return prepared(room);
+        }
+      },
+    },
+  ];
+  // Warm the JIT on every family first: process CPU time also counts the compiler's threads.
+  for (const { make } of families) {
+    const room = make(1000);
+    const d = flatten([room.outline, ...room.obstacles]);
+    const until = cpuNow() + 300;
+    while (cpuNow() < until) {
+      triangulate(room);
+      earcut(d.vertices, d.holes, d.dimensions);
+    }
+  }
+  const rows: string[] = [];
+  for (const { family, make } of families) {
+    let previous: { ours: number; earcut: number } | null = null;
+    for (const n of sizes) {
+      const room = make(n);
+      const actual = room.outline.length + room.obstacles.reduce((s, o) => s + o.length, 0);
+      const m = measure({ family, n: actual, rooms: [room] });
+      const ratio = m.ours / m.earcut;
+      const grow = previous ? `${(m.ours / previous.ours).toFixed(1)}x / ${(m.earcut / previous.earcut).toFixed(1)}x` : "";
+      rows.push(`| ${family} | ${actual.toLocaleString("en")} | ${fmt(m.ours)} | ${fmt(m.earcut)} | ${ratio.toFixed(2)} | ${grow} | ${m.triangles.toLocaleString("en")} / ${m.earcutTriangles.toLocaleString("en")} |`);
+      previous = m;
+      console.error(`triangulation bench: ${family} n=${actual} ours ${fmt(m.ours)} ms, earcut ${fmt(m.earcut)} ms`);
+    }
+  }
+  // AGPLIB: all 44 polygons in one timed batch, and the 6 with holes separately.
+  const polygons = agplibPolygons();
+  const all = polygons.map((p) => prepared(asRoom(p.rings)));
+  const withHoles = all.filter((r) => r.obstacles.length > 0);
+  for (const [label, rooms] of [
+    ["AGPLIB, all 44 polygons (20-200 corners)", all],
+    ["AGPLIB gB_simple, 6 polygons with 10-20 holes", withHoles],
+  ] as const) {
+    const n = rooms.reduce((s, r) => s + r.outline.length + r.obstacles.reduce((t, o) => t + o.length, 0), 0);
+    const m = measure({ family: label, n, rooms: [...rooms] });
+    rows.push(`| ${label} | ${n.toLocaleString("en")} in all | ${fmt(m.ours)} | ${fmt(m.earcut)} | ${(m.ours / m.earcut).toFixed(2)} | | ${m.triangles.toLocaleString("en")} / ${m.earcutTriangles.toLocaleString("en")} |`);
+  }
+  return [
+    `Median CPU milliseconds per triangulation on this machine (2 cores, shared with other work; CPU time, alternating rounds) (Node ${process.version}), ours (monotone pieces, exact predicates, validation not included) against earcut ${"3.x"} in the same run. Ratio = ours / earcut (below 1: we are faster). Growth = time at n divided by time at n/10, ours / earcut. Triangles = ours / earcut's (earcut drops collinear corners, so it may make fewer).`,
+    "",
+    "| shape | corners n | ours ms | earcut ms | ratio | growth from n/10 | triangles |",
+    "| --- | ---: | ---: | ---: | ---: | ---: | ---: |",
+    ...rows,
+  ].join("\n");
+}
