@@ -6,6 +6,7 @@ import type { NamedRoom } from "../geometry/geojson";
 import { prepareRoom, roomArea, roomCounts, type RoomProblem } from "../geometry/room";
 import { triangulate } from "../geometry/triangulate";
 import { planGuaranteed } from "./guaranteed";
+import { fewestReport, planFewest } from "./fewest";
 
 export interface RoomReportOptions {
   /** Skip the fewest plan (the guaranteed plan only). */
@@ -84,9 +85,17 @@ export function planRoomReport(named: NamedRoom, options: RoomReportOptions = {}
   };
 
   // ── FEWEST PLAN (issue 4, the sightlines engineer's spot) ────────────────────────────────────
-  // Import planFewest above and, unless options.guaranteedOnly, set report.fewest and
-  // report.ms.fewest here from `room`, `triangulation`, `guaranteed`, `sightRange` and
-  // options.timeLimitSeconds (default 10). Until then the `fewest` field is omitted.
+  if (!options.guaranteedOnly) {
+    const fewestStarted = now();
+    const plan = planFewest(room, {
+      triangulation,
+      guaranteedPosts: guaranteed.posts,
+      sightRange,
+      timeLimit: options.timeLimitSeconds ?? 10,
+    });
+    report.fewest = fewestReport(plan);
+    report.ms.fewest = elapsed(fewestStarted);
+  }
   // ─────────────────────────────────────────────────────────────────────────────────────────────
 
   return { ok: true, report };

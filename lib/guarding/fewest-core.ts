@@ -1,0 +1,241 @@
+// The fewest plan: iterative set cover in the spirit of Tozoni, de Rezende & de Souza, "Algorithm
+// 966: a practical iterative algorithm for the art gallery problem using integer linear
+// programming" (ACM TOMS 43(2), 2016). Witnesses are points that must be seen; candidate posts are
+// the room's corners, the pinned posts and points in the witnesses' regions; an integer program
+// (HiGHS) picks the fewest candidates that see every witness; the coverage certificate then checks
+// the whole room, and each unseen part adds a witness, until nothing is unseen. The lower bound is
+// an independent witness set (see lower-bound.ts). Anytime: at the time limit the best certified
+// plan found so far is returned with its bound.
+import type { Point, Ring, Room, Triangulation } from "../geometry/types";
+import { createSightlines, type Sightlines } from "../geometry/visibility";
+import { clipToSightRange, discCorners } from "../geometry/visibility-range";
+import { certifyCoverage, pointInside, roomRegion, type CoverageCertificate, type Region } from "../geometry/coverage";
+import { allowedPost, checkConstraints, insideClosedRing, type ConstraintProblem, type PostConstraints } from "./constraints";
+import { independentWitnessBound, type BoundWitness } from "./lower-bound";
+import { solveBinaryProgram } from "./fewest-solver";
+
+export interface FewestOptions extends PostConstraints {
+  /** Seconds to spend on the room (default 10); the best certified plan so far is returned. */
+  timeLimit?: number;
+}
+
+export interface FewestPlan {
+  posts: Point[];
+  /** No plan meeting the constraints has fewer posts (independent witnesses; see lower-bound.ts). */
+  lowerBound: number;
+  /** lowerBound equals the number of posts and the certificate says the room is covered. */
+  proven: boolean;
+  /** Seen share of the room's area (seen twice, for double cover), from the certificate. */
+  covered: number;
+  /** Unseen parts, each an outer ring then its holes. */
+  uncovered: Ring[][];
+  /** Witnesses that prove the lower bound. */
+  boundWitnesses: Point[];
+  witnesses: number;
+  rounds: number;
+  /** Why the search stopped: the bound was met, time ran out, or the witnesses were all seen. */
+  stoppedBy: "proven" | "time-limit" | "covered";
+  problems: ConstraintProblem[];
+}
+
+const key = (p: Point) => `${p[0]},${p[1]}`;
+
+/** Corners of the room where the floor turns less than 180°: the hardest places to see. */
+function convexCorners(room: Room): Point[] {
+  const corners: Point[] = [];
+  for (const ring of [room.outline, ...room.obstacles]) {
+    for (let i = 0; i < ring.length; i++) {
+      const a = ring[(i + ring.length - 1) % ring.length], b = ring[i], c = ring[(i + 1) % ring.length];
+      // Outline counter-clockwise and obstacles clockwise: the floor is on the left of every wall.
+      if ((b[0] - a[0]) * (c[1] - b[1]) - (b[1] - a[1]) * (c[0] - b[0]) > 0) corners.push(b);
+    }
+  }
+  return corners;
+}
+
+function wallMidpoints(room: Room): Point[] {
+  const points: Point[] = [];
+  for (const ring of [room.outline, ...room.obstacles]) {
+    for (let i = 0; i < ring.length; i++) {
+      const a = ring[i], b = ring[(i + 1) % ring.length];
+      points.push([(a[0] + b[0]) / 2, (a[1] + b[1]) / 2]);
+    }
+  }
+  return points;
+}
+
+function roomScale(room: Room): number {
+  let minX = Infinity, minY = Infinity, maxX = -Infinity, maxY = -Infinity;
+  for (const [x, y] of room.outline) {
+    minX = Math.min(minX, x);
+    minY = Math.min(minY, y);
+    maxX = Math.max(maxX, x);
+    maxY = Math.max(maxY, y);
+  }
+  return Math.max(maxX - minX, maxY - minY, 1);
+}
+
+/** Plans the fewest posts for a normalised, valid room over a given triangulation. */
+export function planFewestOver(
+  room: Room,
+  triangulation: Triangulation,
+  options: FewestOptions & { startingPlan?: Point[] } = {},
+): FewestPlan {
+  const started = performance.now();
+  const deadline = started + 1000 * (options.timeLimit ?? 10);
+  const secondsLeft = () => Math.max(0, (deadline - performance.now()) / 1000);
+  const sightlines: Sightlines = createSightlines(room, triangulation);
+  const problems = checkConstraints(room, sightlines, options);
+  const range = options.sightRange && options.sightRange > 0 ? options.sightRange : undefined;
+  const demand: 1 | 2 = options.doubleCover ? 2 : 1;
+  const pinned = problems.some((p) => p.code.startsWith("pinned")) ? [] : (options.pinned ?? []);
+  const scale = roomScale(room);
+  // A candidate sees a witness within the disc polygon's inner radius, as the certificate draws it.
+  const safeReach = range ? range * Math.cos(Math.PI / discCorners(range)) : Infinity;
+
+  const sightOf = new Map<string, Ring | null>();
+  function sight(p: Point): Ring | null {
+    const k = key(p);
+    if (!sightOf.has(k)) {
+      const answer = sightlines.regionOf(p);
+      sightOf.set(k, answer.ok && answer.region.length >= 3 ? answer.region : null);
+    }
+    return sightOf.get(k)!;
+  }
+  const postRegions = new Map<string, Region>();
+  function postRegion(p: Point): Region {
+    const k = key(p);
+    if (!postRegions.has(k)) {
+      const ring = sight(p);
+      postRegions.set(k, !ring ? [] : range ? clipToSightRange(ring, p, range) : [[ring]]);
+    }
+    return postRegions.get(k)!;
+  }
+  function certify(posts: Point[]): CoverageCertificate {
+    return certifyCoverage(room, posts.map(postRegion), demand);
+  }
+
+  // Witnesses and candidates grow together; column j of the cover lists the witnesses candidate j sees.
+  const witnesses: { point: Point; ring: Ring; minX: number; minY: number; maxX: number; maxY: number }[] = [];
+  const candidates: Point[] = [];
+  const candidateKeys = new Map<string, number>();
+  const seenBy: number[][] = []; // seenBy[w] = candidates that see witness w
+  function addCandidate(p: Point) {
+    if (candidateKeys.has(key(p)) || !allowedPost(p, options) || !sight(p)) return;
+    candidateKeys.set(key(p), candidates.length);
+    candidates.push(p);
+    const c = candidates.length - 1;
+    witnesses.forEach((w, i) => {
+      if (sees(w, p)) seenBy[i].push(c);
+    });
+  }
+  function sees(w: (typeof witnesses)[number], p: Point): boolean {
+    if (p[0] < w.minX - 1e-9 || p[0] > w.maxX + 1e-9 || p[1] < w.minY - 1e-9 || p[1] > w.maxY + 1e-9) return false;
+    if (range && Math.hypot(p[0] - w.point[0], p[1] - w.point[1]) > safeReach) return false;
+    return insideClosedRing(p, w.ring);
+  }
+  const witnessKeys = new Set<string>();
+  function addWitness(p: Point) {
+    if (witnessKeys.has(key(p))) return;
+    const ring = sight(p);
+    if (!ring) return;
+    witnessKeys.add(key(p));
+    let minX = Infinity, minY = Infinity, maxX = -Infinity, maxY = -Infinity;
+    for (const [x, y] of ring) {
+      minX = Math.min(minX, x);
+      minY = Math.min(minY, y);
+      maxX = Math.max(maxX, x);
+      maxY = Math.max(maxY, y);
+    }
+    const w = { point: p, ring, minX, minY, maxX, maxY };
+    witnesses.push(w);
+    seenBy.push(candidates.flatMap((c, j) => (sees(w, c) ? [j] : [])));
+  }
+
+  for (const p of pinned) addCandidate(p);
+  for (const p of room.outline) addCandidate(p);
+  for (const obstacle of room.obstacles) for (const p of obstacle) addCandidate(p);
+  for (const p of convexCorners(room)) addWitness(p);
+  for (const p of wallMidpoints(room)) addWitness(p);
+  for (const w of [...witnesses]) addCandidate(w.point);
+
+  // The starting plan (the guaranteed plan when it obeys the constraints) is the first upper bound.
+  let best: { posts: Point[]; certificate: CoverageCertificate } | null = null;
+  const starting = [...pinned, ...(options.startingPlan ?? []).filter((p) => allowedPost(p, options))];
+  if (options.startingPlan && starting.length) {
+    const certificate = certify(starting);
+    if (certificate.covered === 1) best = { posts: starting, certificate };
+  }
+  let lastTry: { posts: Point[]; certificate: CoverageCertificate } | null = best;
+
+  let rounds = 0;
+  let stoppedBy: FewestPlan["stoppedBy"] = "time-limit";
+  const pinnedIndex = pinned.map((p) => candidateKeys.get(key(p))!).filter((i) => i !== undefined);
+  while (secondsLeft() > 0) {
+    rounds++;
+    const answer = solveBinaryProgram({
+      sense: "minimise",
+      weights: candidates.map(() => 1),
+      atLeast: seenBy.map((items) => ({ items, need: Math.min(demand, items.length) })),
+      fixed: pinnedIndex,
+      seconds: secondsLeft(),
+    });
+    if (answer.status === "infeasible" || (answer.status === "stopped" && answer.chosen.length === 0)) break;
+    const posts = answer.chosen.map((j) => candidates[j]);
+    if (best && posts.length >= best.posts.length && answer.status === "optimal") {
+      // The witnesses already force as many posts as the best certified plan: it cannot improve here.
+      stoppedBy = "covered";
+      break;
+    }
+    const certificate = certify(posts);
+    lastTry = { posts, certificate };
+    if (certificate.covered === 1) {
+      if (!best || posts.length < best.posts.length) best = { posts, certificate };
+      stoppedBy = "covered";
+      break;
+    }
+    // Each unseen part gets a witness, which is also a candidate post (it surely sees itself).
+    const before = witnesses.length;
+    for (const polygon of certificate.uncovered) {
+      const p = pointInside(polygon);
+      addWitness(p);
+      addCandidate(p);
+    }
+    // No new witness (an unseen part too thin to hold a fresh point): more rounds would repeat this one.
+    if (witnesses.length === before) break;
+  }
+
+  // The lower bound over every witness used, plus each corner (its region is small: good packing).
+  const pinnedRegions = pinned.map((p) => {
+    const ring = sight(p);
+    return !ring ? [] : range ? clipToSightRange(ring, p, range, "circumscribed") : [[ring]];
+  });
+  const boundWitnesses: BoundWitness[] = witnesses.map((w) => {
+    const seenByPinned = pinnedRegions.filter((region) => region.some((polygon) => insideClosedRing(w.point, polygon[0]))).length;
+    return {
+      point: w.point,
+      region: range ? clipToSightRange(w.ring, w.point, range, "circumscribed") : [[w.ring]],
+      weight: Math.max(0, demand - seenByPinned),
+    };
+  });
+  const proof = independentWitnessBound(boundWitnesses, { scale, pinned: pinned.length, seconds: Math.max(0.2, Math.min(2, secondsLeft())) });
+
+  const chosen = best ?? lastTry;
+  const certificate = chosen?.certificate ?? certifyCoverage(room, [], demand);
+  const posts = chosen?.posts ?? [];
+  const proven = certificate.covered === 1 && proof.bound >= posts.length;
+  return {
+    posts,
+    lowerBound: Math.min(proof.bound, certificate.covered === 1 ? posts.length : Infinity),
+    proven,
+    covered: certificate.covered,
+    uncovered: certificate.uncovered,
+    boundWitnesses: proof.witnesses,
+    witnesses: witnesses.length,
+    rounds,
+    stoppedBy: proven ? "proven" : stoppedBy,
+    problems,
+  };
+}
+
+export { roomRegion };

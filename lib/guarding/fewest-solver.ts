@@ -1,0 +1,67 @@
+// The integer programs of the fewest plan, solved by HiGHS (Huangfu & Hall 2018; npm `highs`,
+// WebAssembly, the same in Node and the browser), written in CPLEX LP format.
+
+type HighsColumn = { Primal?: number };
+type HighsAnswer = { Status: string; ObjectiveValue?: number; Columns: Record<string, HighsColumn> };
+type HighsSolver = { solve(problem: string, options?: Record<string, unknown>): HighsAnswer };
+
+// Loaded once when this module is first imported (top-level await), so every solve after that is
+// synchronous and the planners can run inside synchronous code such as the `posts` command's report.
+async function loadSolver(): Promise<HighsSolver> {
+  const module = await import("highs");
+  const load = (module as unknown as { default: (settings?: unknown) => Promise<HighsSolver> }).default;
+  return load();
+}
+const highs: HighsSolver = await loadSolver();
+
+export interface BinaryAnswer {
+  /** "optimal", "stopped" (time limit, best found so far) or "infeasible". */
+  status: "optimal" | "stopped" | "infeasible";
+  /** Indices of the variables set to 1 (empty when infeasible or nothing found in time). */
+  chosen: number[];
+}
+
+/**
+ * Minimise or maximise the weighted count of chosen items under constraints written as lists of
+ * item indices: `sum(items) >= need` (cover) or `sum(items) <= 1` (packing). `fixed` items are 1.
+ */
+export function solveBinaryProgram(problem: {
+  sense: "minimise" | "maximise";
+  weights: number[];
+  atLeast?: { items: number[]; need: number }[];
+  atMostOne?: number[][];
+  fixed?: number[];
+  seconds: number;
+}): BinaryAnswer {
+  const n = problem.weights.length;
+  if (n === 0) return { status: "optimal", chosen: [] };
+  const lines: string[] = [problem.sense === "minimise" ? "Minimize" : "Maximize"];
+  lines.push(" obj: " + problem.weights.map((w, i) => `${w} x${i}`).join(" + "));
+  lines.push("Subject To");
+  let row = 0;
+  for (const { items, need } of problem.atLeast ?? []) {
+    if (items.length === 0) continue;
+    lines.push(` c${row++}: ${items.map((i) => `x${i}`).join(" + ")} >= ${need}`);
+  }
+  for (const items of problem.atMostOne ?? []) lines.push(` c${row++}: ${items.map((i) => `x${i}`).join(" + ")} <= 1`);
+  if (row === 0) lines.push(" c0: x0 >= 0");
+  const fixed = new Set(problem.fixed ?? []);
+  if (fixed.size) {
+    lines.push("Bounds");
+    for (const i of fixed) lines.push(` x${i} = 1`);
+  }
+  lines.push("Binary");
+  for (let i = 0; i < n; i += 20) lines.push(" " + Array.from({ length: Math.min(20, n - i) }, (_, k) => `x${i + k}`).join(" "));
+  lines.push("End");
+  let answer: HighsAnswer;
+  try {
+    answer = highs.solve(lines.join("\n"), { time_limit: Math.max(0.05, problem.seconds), output_flag: false, mip_rel_gap: 0 });
+  } catch (error) {
+    // An out-of-memory WebAssembly instance cannot recover; report it as the solver's failure.
+    throw new Error(`the integer program solver failed: ${(error as Error).message}`);
+  }
+  if (/infeasible/i.test(answer.Status)) return { status: "infeasible", chosen: [] };
+  const chosen: number[] = [];
+  for (let i = 0; i < n; i++) if ((answer.Columns[`x${i}`]?.Primal ?? 0) > 0.5) chosen.push(i);
+  return { status: answer.Status === "Optimal" ? "optimal" : "stopped", chosen };
+}
