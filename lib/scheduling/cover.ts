@@ -65,7 +65,9 @@ export async function solveCover(scenario: Scenario, demand: Demand, options: { 
     const model = dayModel(scenario, demand, d.day, patterns[d.day], classes);
     let answer = cache.get(model.lp);
     if (!answer) {
+      const t = performance.now();
       answer = solveDay(highs, model, options.timeLimit ?? 20);
+      if (process.env.SW_DEBUG) console.error(`day ${d.day}: ${model.column.size} columns, ${answer.status}, ${Math.round(performance.now() - t)} ms`);
       cache.set(model.lp, answer);
     }
     statuses.add(answer.status);
@@ -157,7 +159,7 @@ function solveDay(highs: HighsInstance, model: DayModel, timeLimit: number): { c
   let objective = rounded.cost + (relaxed.ObjectiveValue - rounded.lpColumnCost);
   if (!rounded.feasible || rounded.cost > rounded.lpColumnCost * 1.01 + 1) {
     // A node limit, not only a time limit, keeps the answer the same on a busy or a quiet machine.
-    const mip = highs.solve(model.lp, { time_limit: timeLimit, mip_max_nodes: 100, mip_rel_gap: 0.01, output_flag: false });
+    const mip = highs.solve(model.lp, { time_limit: timeLimit, mip_max_nodes: 100, mip_rel_gap: 0.01, presolve: "off", output_flag: false });
     if (Object.values(mip.Columns).some((c) => c.Primal !== undefined) && (!rounded.feasible || mip.ObjectiveValue < objective)) {
       counts = new Map([...model.column.keys()].map((name) => [name, Math.round(mip.Columns[name]?.Primal ?? 0)]));
       status = `MIP ${mip.Status}`;

@@ -25,7 +25,10 @@ export function explainUnfilled(scenario: Scenario, demand: Demand, shifts: Shif
     if (isUnavailable(demand, guard.id, slotStart, slotEnd)) add("on leave");
     else if (current) {
       const onBreak = current.breaks.some((b) => b.start < slotEnd && slotStart < b.end);
-      add(onBreak ? "on a break" : "at other posts");
+      // Off post right after the longest allowed stay here: rotation, not rest, keeps them away.
+      const stayEnd = current.segments.filter((x) => x.post === postId && x.end === slotStart);
+      const rotated = onBreak && stayEnd.length > 0 && stayLength(current.segments, postId, slotStart) >= rules.maxHoursAtOnePost * HOUR - 1000;
+      add(rotated ? `rotating off this post after ${rules.maxHoursAtOnePost} h` : onBreak ? "on a break" : "at other posts");
     } else if (day && own.some((s) => s.start >= day.open! && s.start < day.close!)) add("already on a shift that day");
     else {
       const rest = rules.minRestHours * HOUR;
@@ -51,4 +54,14 @@ export function explainUnfilled(scenario: Scenario, demand: Demand, shifts: Shif
   if (post.skills.length && unqualified > 0) parts.push(`${unqualified} without the skill`);
   const advice = counts.has("free but no legal shift fits the gap") ? "; add a short shift or move a break" : "; add a guard or move a shift";
   return `no guard${skillText} is free: ${parts.join(", ")}${advice}`;
+}
+
+/** Unbroken time at a post up to `until` (segments back to back at the same post). */
+function stayLength(segments: Shift["segments"], post: string, until: number): number {
+  let start = until;
+  for (;;) {
+    const before = segments.find((x) => x.post === post && x.end === start);
+    if (!before) return until - start;
+    start = before.start;
+  }
 }

@@ -1,4 +1,5 @@
 // Totals of a roster (recomputed from its shifts) and the proven lower bound on the cost of any roster filling the same slots.
+import { shiftKind } from "./assign";
 import { demandPostHours, type Demand } from "./demand";
 import { paidMs, type Roster } from "./roster";
 import type { Scenario } from "./scenario";
@@ -16,6 +17,8 @@ export interface Totals {
   gap: number;
   /** Guards paid fewer hours than their contract, per week block. */
   contractUnderuse: { guard: string; week: number; paidHours: number; contractHours: number }[];
+  /** Spread of late (ending 20:00 or later) and weekend shifts over the guards who work: fewest and most per guard. */
+  fairness: { lateShifts: { fewest: number; most: number }; weekendShifts: { fewest: number; most: number } };
 }
 
 const round = (x: number, digits = 2) => Math.round(x * 10 ** digits) / 10 ** digits;
@@ -66,7 +69,21 @@ export function computeTotals(scenario: Scenario, demand: Demand, roster: Roster
     lowerBoundCost: round(lowerBoundCost),
     gap: lowerBoundCost > 0 ? round((cost - lowerBoundCost) / lowerBoundCost, 4) : 0,
     contractUnderuse,
+    fairness: fairnessOf(scenario, demand, roster),
   };
+}
+
+function fairnessOf(scenario: Scenario, demand: Demand, roster: Roster): Totals["fairness"] {
+  const late = new Map<string, number>();
+  const weekend = new Map<string, number>();
+  for (const shift of roster.shifts) {
+    const day = Math.max(0, demand.dayStarts.findIndex((t, i) => t <= shift.start && shift.start < (demand.dayStarts[i + 1] ?? Infinity)));
+    const kind = shiftKind(scenario, demand, shift.start, shift.end, Math.min(day, demand.days.length - 1));
+    late.set(shift.guard, (late.get(shift.guard) ?? 0) + (kind.late ? 1 : 0));
+    weekend.set(shift.guard, (weekend.get(shift.guard) ?? 0) + (kind.weekend ? 1 : 0));
+  }
+  const spread = (m: Map<string, number>) => (m.size ? { fewest: Math.min(...m.values()), most: Math.max(...m.values()) } : { fewest: 0, most: 0 });
+  return { lateShifts: spread(late), weekendShifts: spread(weekend) };
 }
 
 /**
