@@ -4,7 +4,7 @@ import type { SkillClass } from "./cover";
 import { hasSkills, isUnavailable, type Demand } from "./demand";
 import { assignMinCost, FORBIDDEN } from "./hungarian";
 import type { ShiftPattern } from "./patterns";
-import type { Guard, Scenario } from "./scenario";
+import { weekdayNames, type Guard, type Scenario } from "./scenario";
 import { formatClock, HOUR, weekdayIndex } from "./time";
 
 export interface ShiftInstance {
@@ -91,6 +91,7 @@ export function assignDay(scenario: Scenario, demand: Demand, instances: ShiftIn
     const paidMs = inst.pattern.workMs + (rules.paidBreaks ? inst.pattern.breakMs : 0);
     const week = Math.floor(inst.day / 7);
     const kind = shiftKind(scenario, demand, inst.pattern.start, inst.pattern.end, inst.day);
+    const weekday = weekdayIndex(scenario.timezone, demand.days[inst.day].date);
     const row: number[] = [];
     for (const load of guards) {
       if (!hasSkills(load.guard.skills, inst.skillClass.skills) || blockerFor(scenario, demand, load, inst.pattern.start, inst.pattern.end, paidMs)) {
@@ -106,6 +107,8 @@ export function assignDay(scenario: Scenario, demand: Demand, instances: ShiftIn
       c += rules.contractWeight * rules.hourlyRate * 0.5 * ((hoursBefore + paid / 2) / contract);
       if (hoursBefore + paid > load.guard.contractHours) c += rules.contractWeight * rules.hourlyRate * 0.1 * (hoursBefore + paid - load.guard.contractHours);
       if (kind.late) c += rules.fairnessWeight * load.late;
+      if (kind.late && load.guard.prefers.noLateShifts) c += rules.preferenceWeight;
+      if (load.guard.prefers.daysOff.includes(weekdayNames[weekday])) c += rules.preferenceWeight;
       if (kind.weekend) c += rules.fairnessWeight * load.weekend;
       // Keep guards with rare skills for the shifts that need them.
       const extraKey = `${load.guard.id}|${inst.skillClass.key}`;

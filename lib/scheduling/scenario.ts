@@ -32,6 +32,7 @@ export const rulesSchema = z.object({
   // Soft-goal weights (extra to the contract): money units per unit of unfairness.
   fairnessWeight: z.number().nonnegative().default(5),
   contractWeight: z.number().nonnegative().default(1),
+  preferenceWeight: z.number().nonnegative().default(10),
 });
 
 const weekdays = ["mon", "tue", "wed", "thu", "fri", "sat", "sun"] as const;
@@ -66,6 +67,10 @@ export const scenarioSchema = z
         unavailable: z
           .array(z.object({ start: localDateTime, end: localDateTime }))
           .default([]),
+        // Soft wishes (extra to the contract): weekdays off and no late shifts, honoured when the cost allows.
+        prefers: z
+          .object({ daysOff: z.array(z.enum(weekdays)).default([]), noLateShifts: z.boolean().default(false) })
+          .default({ daysOff: [], noLateShifts: false }),
       }),
     ),
     rules: rulesSchema.default(rulesSchema.parse({})),

@@ -47,6 +47,7 @@ describe("engine on generated scenarios (fast-check, few runs to keep time modes
           paidBreaks: fc.boolean(),
           slotMinutes: fc.constantFrom(60 as const, 30 as const),
           days: fc.integer({ min: 1, max: 3 }),
+          leaveEvery: fc.option(fc.integer({ min: 2, max: 4 }), { nil: undefined }),
         }),
         async (o) => {
           const close = o.openHour + o.openLength;
@@ -156,5 +157,21 @@ describe("engine on fixed cases", () => {
     const result = await buildRoster(s);
     const filled = result.roster.shifts.reduce((sum, sh) => sum + sh.segments.reduce((a, x) => a + x.end - x.start, 0), 0) / HOUR;
     expect(lowerBound(s, buildDemand(s), result.roster)).toBeCloseTo(22 * filled, 6);
+  });
+
+  it("a guard's wish for weekends off and no late shifts is honoured when others are free", async () => {
+    const base = generateScenario({ posts: 2, guards: 8 });
+    const isWeekendOrLate = (sh: Shift) => {
+      const local = new Date(sh.start).toLocaleString("en-GB", { timeZone: "Europe/Berlin", weekday: "short" });
+      const endHour = Number(new Date(sh.end).toLocaleString("en-GB", { timeZone: "Europe/Berlin", hour: "2-digit", hour12: false }));
+      return local === "Sat" || local === "Sun" || endHour >= 20;
+    };
+    const without = await buildRoster(base);
+    // The control: with no wish, G001 gets weekend or late work (so the check below can fail).
+    expect(without.roster.shifts.filter((sh) => sh.guard === "G001").some(isWeekendOrLate)).toBe(true);
+    const wishing = { ...base, guards: base.guards.map((g) => (g.id === "G001" ? { ...g, prefers: { daysOff: ["sat", "sun"] as ("sat" | "sun")[], noLateShifts: true } } : g)) };
+    const withWish = await buildRoster(wishing);
+    expect(withWish.violations).toEqual([]);
+    expect(withWish.roster.shifts.filter((sh) => sh.guard === "G001").some(isWeekendOrLate)).toBe(false);
   });
 });
