@@ -18,6 +18,7 @@ export const PERMISSIONS = [
   "users:manage",
   "settings:manage",
   "mail:read",
+  "time-off:decide",
 ] as const;
 export type Permission = (typeof PERMISSIONS)[number];
 
@@ -32,6 +33,7 @@ const GRANTS: Record<Role, readonly Permission[]> = {
     "staffing:view",
     "rosters:publish",
     "people:view",
+    "time-off:decide",
   ],
   guard: ["shifts:own"],
   admin: ["users:manage", "settings:manage", "mail:read"],

@@ -1,9 +1,14 @@
 import type { Metadata } from "next";
 import { db } from "@/db";
 import type { Weekday } from "@/db/schema";
+import { timeOffOfSite } from "@/db/queries/rosters";
 import { requirePageUser } from "@/lib/auth/session";
+import { addLocalDays, weekdayIndex } from "@/lib/scheduling/time";
+import { isMonday } from "@/lib/rosters/scenario";
 import { calendarDate, siteTime } from "@/components/when";
-import { describeOpening, mainSite } from "../_queries/site";
+import { describeOpening, mainSite, siteDay } from "../_queries/site";
+import { RosterWorkbench } from "./_components/roster-workbench";
+import { TimeOffDecisions } from "./_components/time-off-decisions";
 
 export const metadata: Metadata = { title: "Staffing" };
 
@@ -26,11 +31,19 @@ function spanHours(span: [string, string] | null): number {
   return (minutes(span[1]) - minutes(span[0])) / 60;
 }
 
-export default async function StaffingPage() {
+/** The Monday of the site's coming week (today when today is a Monday). */
+function comingMonday(timeZone: string, today: string): string {
+  const weekday = weekdayIndex(timeZone, today);
+  return weekday === 0 ? today : addLocalDays(timeZone, today, 7 - weekday);
+}
+
+export default async function StaffingPage({ searchParams }: { searchParams: Promise<Record<string, string | string[] | undefined>> }) {
   await requirePageUser("staffing:view");
   const site = await mainSite();
   if (!site) return <h1>Staffing</h1>;
-  const [capacity, rosters] = await Promise.all([
+  const asked = (await searchParams).week;
+  const week = typeof asked === "string" && isMonday(asked) ? asked : comingMonday(site.time_zone, siteDay(site).date);
+  const [capacity, rosters, timeOff] = await Promise.all([
     db
       .selectFrom("guards")
       .select((eb) => [eb.fn.countAll<string>().as("guards"), eb.fn.sum<number>("contract_hours").as("hours")])
@@ -43,7 +56,10 @@ export default async function StaffingPage() {
       .where("rosters.site_id", "=", site.id)
       .groupBy("rosters.id")
       .orderBy("rosters.starts_on", "desc")
+      .orderBy("rosters.status")
+      .orderBy("rosters.version", "desc")
       .execute(),
+    timeOffOfSite(db, site.id),
   ]);
   const weekly = site.opening_hours.weekly;
   const openHours = WEEK.reduce((sum, { day }) => sum + spanHours(weekly[day]), 0);
@@ -55,6 +71,14 @@ export default async function StaffingPage() {
         <h1>Staffing</h1>
         <p className="text-stone-700">Opening hours decide how many hours each post is staffed; contracts decide who can staff them.</p>
       </div>
+      <RosterWorkbench key={week} initialWeek={week} />
+      <section aria-labelledby="time-off" className="card">
+        <h2 id="time-off">Time off</h2>
+        <p className="text-sm text-stone-700">Approved time off is unavailability in the next roster build; rebuild a week after approving.</p>
+        <TimeOffDecisions
+          requests={timeOff.map((r) => ({ id: r.id, guardName: r.guard_name, startsOn: r.starts_on, endsOn: r.ends_on, note: r.note, status: r.status }))}
+        />
+      </section>
       <div className="grid gap-6 lg:grid-cols-2">
         <section aria-labelledby="week" className="card">
           <h2 id="week">Weekly opening at {site.name}</h2>
@@ -123,7 +147,7 @@ export default async function StaffingPage() {
             <table className="data-table mt-2">
               <thead>
                 <tr>
-                  <th scope="col">Starts</th>
+                  <th scope="col">Week of</th>
                   <th scope="col">Days</th>
                   <th scope="col">Status</th>
                   <th scope="col">Version</th>
@@ -134,7 +158,9 @@ export default async function StaffingPage() {
               <tbody>
                 {rosters.map((roster) => (
                   <tr key={roster.id}>
-                    <td>{calendarDate(roster.starts_on)}</td>
+                    <td>
+                      <a href={`/staffing?week=${roster.starts_on}`}>{calendarDate(roster.starts_on)}</a>
+                    </td>
                     <td>{roster.days}</td>
                     <td>{roster.status}</td>
                     <td>{roster.version}</td>

@@ -1,0 +1,73 @@
+"use client";
+// A roster's totals, its rule violations (there should be none) and every hour it could not fill, with the reason.
+import { TZDate } from "@date-fns/tz";
+import { format } from "date-fns";
+import type { RosterView } from "./roster-types";
+
+const money = (value: number) => value.toLocaleString("en-GB", { minimumFractionDigits: 2, maximumFractionDigits: 2 });
+
+export function RosterSummary({ roster }: { roster: RosterView }) {
+  const totals = roster.totals;
+  const at = (iso: string, pattern: string) => format(new TZDate(new Date(iso), roster.timeZone), pattern);
+  // Unfilled hours with the same post and reason read best as one line per run of hours.
+  const groups = new Map<string, { label: string; reason: string; hours: string[] }>();
+  for (const u of roster.unfilled) {
+    const key = `${u.post}|${u.reason}|${at(u.start, "yyyy-MM-dd")}`;
+    const group = groups.get(key) ?? { label: u.label, reason: u.reason, hours: [] };
+    group.hours.push(`${at(u.start, "EEE d MMM HH:mm")}–${at(u.end, "HH:mm")}`);
+    groups.set(key, group);
+  }
+  return (
+    <div className="space-y-4">
+      {totals && (
+        <dl className="grid grid-cols-2 gap-x-6 gap-y-1 text-sm sm:grid-cols-4" aria-label="Roster totals">
+          <Total term="Post-hours" value={String(totals.postHours)} />
+          <Total term="Filled" value={String(totals.filledPostHours)} />
+          <Total term="Unfilled" value={String(totals.unfilledPostHours)} />
+          <Total term="Paid hours" value={String(totals.paidHours)} />
+          <Total term="Overtime hours" value={String(totals.overtimeHours)} />
+          <Total term="Cost" value={money(totals.cost)} />
+          <Total term="Lower bound" value={money(totals.lowerBoundCost)} />
+          <Total term="Gap to bound" value={`${(totals.gap * 100).toFixed(1)} %`} />
+        </dl>
+      )}
+      <div>
+        <h3>Rule violations</h3>
+        {roster.violations.length === 0 ? (
+          <p className="text-sm" data-testid="violations">None: every shift keeps every rule.</p>
+        ) : (
+          <ul className="list-disc pl-5 text-sm text-alert-700" data-testid="violations">
+            {roster.violations.map((v, i) => (
+              <li key={i}>
+                {v.message} <span className="tag-high">{v.rule}</span>
+              </li>
+            ))}
+          </ul>
+        )}
+      </div>
+      <details open={roster.unfilled.length > 0 && roster.unfilled.length <= 20}>
+        <summary className="cursor-pointer font-semibold">
+          Unfilled: {roster.unfilled.length} post-hours {roster.unfilled.length > 0 ? "(with reasons)" : ""}
+        </summary>
+        {groups.size > 0 && (
+          <ul className="mt-2 space-y-1 text-sm">
+            {[...groups.values()].map((group, i) => (
+              <li key={i}>
+                <span className="font-semibold">{group.label}</span>, {group.hours.length === 1 ? group.hours[0] : `${group.hours[0]} and ${group.hours.length - 1} more hours that day`}: {group.reason}
+              </li>
+            ))}
+          </ul>
+        )}
+      </details>
+    </div>
+  );
+}
+
+function Total({ term, value }: { term: string; value: string }) {
+  return (
+    <div>
+      <dt className="text-stone-700">{term}</dt>
+      <dd className="font-semibold">{value}</dd>
+    </div>
+  );
+}

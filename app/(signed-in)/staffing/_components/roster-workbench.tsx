@@ -1,0 +1,205 @@
+"use client";
+// The week's roster work: pick a Monday, build (a background job, polled), look at the draft,
+// edit it, publish it; earlier published versions stay readable.
+import { useMutation, useQuery, useQueryClient } from "@tanstack/react-query";
+import { useRouter } from "next/navigation";
+import { useEffect, useState } from "react";
+import { apiFetch } from "@/lib/api/client";
+import { isMonday } from "@/lib/rosters/scenario";
+import type { JobState, RosterView, WeekOverview } from "./roster-types";
+import { RosterGrid } from "./roster-grid";
+import { RosterSummary } from "./roster-summary";
+
+function shiftDate(date: string, days: number): string {
+  const [y, m, d] = date.split("-").map(Number);
+  return new Date(Date.UTC(y!, m! - 1, d! + days)).toISOString().slice(0, 10);
+}
+
+function useJob(jobId: number | null) {
+  return useQuery({
+    queryKey: ["job", jobId],
+    queryFn: () => apiFetch<{ job: JobState }>(`/api/jobs/${jobId}`).then((r) => r.job),
+    enabled: jobId !== null,
+    // Poll while the job is on its way; stop once it is done or failed.
+    refetchInterval: (query) => (query.state.data && (query.state.data.status === "done" || query.state.data.status === "failed") ? false : 1000),
+    staleTime: 0,
+  });
+}
+
+export function RosterWorkbench({ initialWeek }: { initialWeek: string }) {
+  const router = useRouter();
+  const queryClient = useQueryClient();
+  const [week, setWeek] = useState(initialWeek);
+  const [weekInput, setWeekInput] = useState(initialWeek);
+  const [shownRosterId, setShownRosterId] = useState<number | null>(null);
+  const [buildJobId, setBuildJobId] = useState<number | null>(null);
+  const [mailJobId, setMailJobId] = useState<number | null>(null);
+  const [interactive, setInteractive] = useState(false);
+  useEffect(() => setInteractive(true), []);
+
+  const overview = useQuery({
+    queryKey: ["roster-week", week],
+    queryFn: () => apiFetch<{ week: WeekOverview }>(`/api/rosters?startsOn=${week}`).then((r) => r.week),
+    staleTime: 0,
+  });
+  // A build still running for this week (e.g. started before a reload) is followed too.
+  const pendingBuild = overview.data?.build && (overview.data.build.status === "queued" || overview.data.build.status === "running") ? overview.data.build.id : null;
+  const activeBuildId = buildJobId ?? pendingBuild;
+  const buildJob = useJob(activeBuildId);
+  const mailJob = useJob(mailJobId);
+
+  const rosterId = shownRosterId ?? overview.data?.draft?.id ?? overview.data?.published[0]?.id ?? null;
+  const roster = useQuery({
+    queryKey: ["roster", rosterId],
+    queryFn: () => apiFetch<{ roster: RosterView }>(`/api/rosters/${rosterId}`).then((r) => r.roster),
+    enabled: rosterId !== null,
+    staleTime: 0,
+  });
+
+  useEffect(() => {
+    if (buildJob.data?.status === "done") {
+      setShownRosterId(null);
+      void queryClient.invalidateQueries({ queryKey: ["roster-week", week] });
+      void queryClient.invalidateQueries({ queryKey: ["roster"] });
+      router.refresh();
+    }
+  }, [buildJob.data?.status, queryClient, week, router]);
+
+  const build = useMutation({
+    mutationFn: () => apiFetch<{ job: JobState }>("/api/rosters/build", { body: { startsOn: week } }),
+    onSuccess: ({ job }) => setBuildJobId(job.id),
+  });
+  const publish = useMutation({
+    mutationFn: (draft: RosterView) =>
+      apiFetch<{ roster: { id: number; version: number }; mailJob: { id: number } }>(`/api/rosters/${draft.id}/publish`, { body: { revision: draft.revision } }),
+    onSuccess: ({ mailJob: job }) => {
+      setMailJobId(job.id);
+      void queryClient.invalidateQueries({ queryKey: ["roster-week", week] });
+      router.refresh();
+    },
+  });
+
+  const weekProblem = isMonday(weekInput) ? null : "Pick a Monday: rosters run Monday to Sunday.";
+  const chooseWeek = (next: string) => {
+    setWeekInput(next);
+    if (isMonday(next)) {
+      setWeek(next);
+      setShownRosterId(null);
+      setBuildJobId(null);
+      setMailJobId(null);
+      build.reset();
+      publish.reset();
+    }
+  };
+
+  const building = buildJob.data ? buildJob.data.status === "queued" || buildJob.data.status === "running" : build.isPending;
+  const draft = overview.data?.draft ?? null;
+  const shown = roster.data ?? null;
+
+  return (
+    <section aria-labelledby="roster-heading" className="card space-y-4">
+      <h2 id="roster-heading">Roster</h2>
+      <div className="flex flex-wrap items-end gap-3">
+        <div>
+          <label htmlFor="roster-week" className="field-label">Week starting (Monday)</label>
+          <input
+            id="roster-week"
+            type="date"
+            className="field-input"
+            value={weekInput}
+            step={7}
+            onChange={(event) => chooseWeek(event.target.value)}
+            aria-invalid={weekProblem ? true : undefined}
+            aria-describedby="roster-week-message"
+          />
+        </div>
+        <button type="button" className="button-quiet" onClick={() => chooseWeek(shiftDate(week, -7))}>Previous week</button>
+        <button type="button" className="button-quiet" onClick={() => chooseWeek(shiftDate(week, 7))}>Next week</button>
+        <button type="button" className="button" disabled={!interactive || building || weekProblem !== null} onClick={() => build.mutate()}>
+          {draft ? "Rebuild roster" : "Build roster"}
+        </button>
+      </div>
+      <p id="roster-week-message" role={weekProblem ? "alert" : undefined} className={weekProblem ? "text-sm text-alert-700" : "sr-only"}>
+        {weekProblem ?? ""}
+      </p>
+      {build.error && <p role="alert" className="text-alert-700">{build.error.message}</p>}
+
+      {activeBuildId !== null && buildJob.data && (
+        <JobProgress label="Building the roster" job={buildJob.data} />
+      )}
+
+      <Versions
+        overview={overview.data ?? null}
+        shownId={shown?.id ?? null}
+        onShow={(id) => setShownRosterId(id)}
+      />
+
+      {overview.error && <p role="alert" className="text-alert-700">{overview.error.message}</p>}
+      {roster.error && <p role="alert" className="text-alert-700">{roster.error.message}</p>}
+      {shown && (
+        <>
+          <div className="flex flex-wrap items-center gap-3">
+            <p className="font-semibold" data-testid="roster-status">
+              {shown.status === "draft" ? `Draft (revision ${shown.revision})` : `Published version ${shown.version}`}
+            </p>
+            {shown.status === "draft" && (
+              <button
+                type="button"
+                className="button"
+                disabled={!interactive || publish.isPending || shown.violations.length > 0}
+                onClick={() => publish.mutate(shown)}
+              >
+                Publish
+              </button>
+            )}
+          </div>
+          {publish.error && <p role="alert" className="text-alert-700">{publish.error.message}</p>}
+          {publish.data && (
+            <p role="status" className="text-ink-800">
+              Published version {publish.data.roster.version}; e-mailing every guard on it.
+            </p>
+          )}
+          {mailJobId !== null && mailJob.data && <JobProgress label="E-mailing guards" job={mailJob.data} />}
+          <RosterSummary roster={shown} />
+          <RosterGrid roster={shown} onChanged={() => void queryClient.invalidateQueries({ queryKey: ["roster-week", week] })} />
+        </>
+      )}
+      {!shown && overview.data && !overview.data.draft && overview.data.published.length === 0 && !building && (
+        <p>No roster for this week yet. Build one: it takes a few seconds.</p>
+      )}
+    </section>
+  );
+}
+
+function JobProgress({ label, job }: { label: string; job: JobState }) {
+  const percent = Math.round(job.progress * 100);
+  return (
+    <div className="space-y-1" data-testid="job-progress">
+      <p className="text-sm font-semibold text-ink-800" id={`job-${job.id}-label`}>
+        {label}: {job.status === "failed" ? "failed" : job.status === "done" ? "done" : `${percent}%`}
+      </p>
+      <progress className="w-full" max={100} value={percent} aria-labelledby={`job-${job.id}-label`} />
+      <p role="status" className={job.status === "failed" ? "text-sm text-alert-700" : "text-sm text-stone-700"}>{job.message}</p>
+    </div>
+  );
+}
+
+function Versions({ overview, shownId, onShow }: { overview: WeekOverview | null; shownId: number | null; onShow: (id: number) => void }) {
+  if (!overview || (!overview.draft && overview.published.length === 0)) return null;
+  return (
+    <div className="flex flex-wrap items-center gap-2 text-sm">
+      <span className="font-semibold">This week:</span>
+      {overview.draft && (
+        <button type="button" className={overview.draft.id === shownId ? "button" : "button-quiet"} onClick={() => onShow(overview.draft!.id)}>
+          Draft
+        </button>
+      )}
+      {overview.published.map((version, index) => (
+        <button key={version.id} type="button" className={version.id === shownId ? "button" : "button-quiet"} onClick={() => onShow(version.id)}>
+          Version {version.version}
+          {index === 0 ? " (current)" : " (superseded)"}
+        </button>
+      ))}
+    </div>
+  );
+}

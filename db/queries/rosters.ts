@@ -1,0 +1,273 @@
+// Rosters, their shifts and versions, guards' calendar tokens and time-off requests.
+// A week has at most one draft (edited, rebuilt) and any number of published versions, 1, 2, ...;
+// the latest published version is the one that counts for guards.
+import { sql, type Kysely, type Transaction } from "kysely";
+import type { Database, Roster, RosterTotals, RosterUnfilled, RosterViolation, TimeOffStatus } from "../schema";
+import { toJson } from "../schema";
+
+type Handle = Kysely<Database> | Transaction<Database>;
+
+export async function siteById(handle: Handle, siteId: number) {
+  return (await handle.selectFrom("sites").selectAll().where("id", "=", siteId).executeTakeFirst()) ?? null;
+}
+
+export async function guardsOfSite(handle: Handle, siteId: number) {
+  return handle
+    .selectFrom("guards")
+    .select(["id", "name", "email", "contract_hours", "max_hours", "skills", "user_id"])
+    .where("site_id", "=", siteId)
+    .orderBy("id")
+    .execute();
+}
+
+/** Approved time off of the site's guards overlapping [from, to] (inclusive dates). */
+export async function approvedTimeOff(handle: Handle, siteId: number, from: string, to: string) {
+  return handle
+    .selectFrom("time_off")
+    .innerJoin("guards", "guards.id", "time_off.guard_id")
+    .select(["time_off.guard_id", "time_off.starts_on", "time_off.ends_on"])
+    .where("guards.site_id", "=", siteId)
+    .where("time_off.status", "=", "approved")
+    .where("time_off.starts_on", "<=", to)
+    .where("time_off.ends_on", ">=", from)
+    .orderBy("time_off.starts_on")
+    .execute();
+}
+
+export async function rosterById(handle: Handle, rosterId: number): Promise<Roster | null> {
+  return (await handle.selectFrom("rosters").selectAll().where("id", "=", rosterId).executeTakeFirst()) ?? null;
+}
+
+export async function draftOfWeek(handle: Handle, siteId: number, startsOn: string): Promise<Roster | null> {
+  return (
+    (await handle
+      .selectFrom("rosters")
+      .selectAll()
+      .where("site_id", "=", siteId)
+      .where("starts_on", "=", startsOn)
+      .where("status", "=", "draft")
+      .executeTakeFirst()) ?? null
+  );
+}
+
+/** Published versions of a week, newest first. */
+export async function publishedVersionsOfWeek(handle: Handle, siteId: number, startsOn: string) {
+  return handle
+    .selectFrom("rosters")
+    .select(["id", "version", "published_at", "supersedes", "revision"])
+    .where("site_id", "=", siteId)
+    .where("starts_on", "=", startsOn)
+    .where("status", "=", "published")
+    .orderBy("version", "desc")
+    .execute();
+}
+
+/** Every roster of a site, newest week first, with its shift count. */
+export async function rostersOfSite(handle: Handle, siteId: number) {
+  return handle
+    .selectFrom("rosters")
+    .leftJoin("shifts", "shifts.roster_id", "rosters.id")
+    .select((eb) => [
+      "rosters.id",
+      "rosters.starts_on",
+      "rosters.days",
+      "rosters.status",
+      "rosters.version",
+      "rosters.revision",
+      "rosters.published_at",
+      "rosters.supersedes",
+      eb.fn.count<string>("shifts.id").as("shifts"),
+    ])
+    .where("rosters.site_id", "=", siteId)
+    .groupBy("rosters.id")
+    .orderBy("rosters.starts_on", "desc")
+    .orderBy("rosters.status")
+    .orderBy("rosters.version", "desc")
+    .execute();
+}
+
+export async function shiftsOfRoster(handle: Handle, rosterId: number) {
+  return handle
+    .selectFrom("shifts")
+    .innerJoin("guards", "guards.id", "shifts.guard_id")
+    .select(["shifts.id", "shifts.guard_id", "guards.name as guard_name", "shifts.starts_at", "shifts.ends_at", "shifts.segments", "shifts.breaks"])
+    .where("shifts.roster_id", "=", rosterId)
+    .orderBy("shifts.starts_at")
+    .orderBy("shifts.guard_id")
+    .execute();
+}
+
+export interface DraftContent {
+  siteId: number;
+  startsOn: string;
+  days: number;
+  scenario: unknown;
+  shifts: { guard_id: number; starts_at: Date; ends_at: Date; segments: unknown[]; breaks: unknown[] }[];
+  unfilled: RosterUnfilled[];
+  totals: RosterTotals;
+  violations: RosterViolation[];
+  createdBy: number | null;
+}
+
+/** Replaces the week's draft (if any) with a new one; call inside a transaction. */
+export async function replaceDraft(trx: Transaction<Database>, content: DraftContent): Promise<Roster> {
+  const previous = await trx
+    .deleteFrom("rosters")
+    .where("site_id", "=", content.siteId)
+    .where("starts_on", "=", content.startsOn)
+    .where("status", "=", "draft")
+    .returning("revision")
+    .executeTakeFirst();
+  const roster = await trx
+    .insertInto("rosters")
+    .values({
+      site_id: content.siteId,
+      starts_on: content.startsOn,
+      days: content.days,
+      status: "draft",
+      // A rebuilt draft continues the revision count, so a page holding the old draft cannot publish the new one.
+      revision: (previous?.revision ?? 0) + 1,
+      scenario: toJson(content.scenario),
+      unfilled: toJson(content.unfilled),
+      totals: toJson(content.totals),
+      violations: toJson(content.violations),
+      created_by: content.createdBy,
+    })
+    .returningAll()
+    .executeTakeFirstOrThrow();
+  await insertShifts(trx, roster.id, content.shifts);
+  return roster;
+}
+
+export async function insertShifts(trx: Handle, rosterId: number, shifts: DraftContent["shifts"]): Promise<void> {
+  if (shifts.length === 0) return;
+  await trx
+    .insertInto("shifts")
+    .values(
+      shifts.map((s) => ({
+        roster_id: rosterId,
+        guard_id: s.guard_id,
+        starts_at: s.starts_at,
+        ends_at: s.ends_at,
+        segments: toJson(s.segments),
+        breaks: toJson(s.breaks),
+      })),
+    )
+    .execute();
+}
+
+/** The latest published version of every week of a site (the versions guards go by). */
+export function latestPublishedRosters(handle: Handle) {
+  return handle
+    .selectFrom("rosters")
+    .selectAll()
+    .where("status", "=", "published")
+    .where(({ not, exists, selectFrom }) =>
+      not(
+        exists(
+          selectFrom("rosters as later")
+            .select("later.id")
+            .whereRef("later.site_id", "=", "rosters.site_id")
+            .whereRef("later.starts_on", "=", "rosters.starts_on")
+            .where("later.status", "=", "published")
+            .whereRef("later.version", ">", "rosters.version"),
+        ),
+      ),
+    );
+}
+
+/** A guard's shifts in the latest published version of each week, ending after `from`, earliest first. */
+export async function currentShiftsOfGuard(handle: Handle, guardId: number, from?: Date) {
+  let query = handle
+    .selectFrom("shifts")
+    .innerJoin(latestPublishedRosters(handle).as("roster"), "roster.id", "shifts.roster_id")
+    .innerJoin("sites", "sites.id", "roster.site_id")
+    .select([
+      "shifts.id",
+      "shifts.starts_at",
+      "shifts.ends_at",
+      "shifts.segments",
+      "shifts.breaks",
+      "roster.id as roster_id",
+      "roster.version as roster_version",
+      "roster.starts_on",
+      "sites.name as site_name",
+      "sites.time_zone",
+    ])
+    .where("shifts.guard_id", "=", guardId);
+  if (from) query = query.where("shifts.ends_at", ">", from);
+  return query.orderBy("shifts.starts_at").execute();
+}
+
+export async function guardByUserId(handle: Handle, userId: number) {
+  return (
+    (await handle
+      .selectFrom("guards")
+      .select(["id", "name", "email", "site_id", "calendar_token"])
+      .where("user_id", "=", userId)
+      .executeTakeFirst()) ?? null
+  );
+}
+
+export async function guardByCalendarToken(handle: Handle, token: string) {
+  return (
+    (await handle
+      .selectFrom("guards")
+      .select(["id", "name", "email", "site_id"])
+      .where("calendar_token", "=", token)
+      .executeTakeFirst()) ?? null
+  );
+}
+
+/** Gives the guard a new random calendar token (the column's default); the old feed address stops working. */
+export async function resetCalendarToken(handle: Handle, guardId: number): Promise<string> {
+  const row = await handle
+    .updateTable("guards")
+    .set({ calendar_token: sql<string>`default` })
+    .where("id", "=", guardId)
+    .returning("calendar_token")
+    .executeTakeFirstOrThrow();
+  return row.calendar_token;
+}
+
+export async function timeOffOfGuard(handle: Handle, guardId: number) {
+  return handle
+    .selectFrom("time_off")
+    .select(["id", "starts_on", "ends_on", "note", "status", "decided_at", "created_at"])
+    .where("guard_id", "=", guardId)
+    .orderBy("starts_on", "desc")
+    .execute();
+}
+
+/** Time-off requests of a site's guards, open requests first, then by start. */
+export async function timeOffOfSite(handle: Handle, siteId: number) {
+  return handle
+    .selectFrom("time_off")
+    .innerJoin("guards", "guards.id", "time_off.guard_id")
+    .select(["time_off.id", "time_off.guard_id", "guards.name as guard_name", "time_off.starts_on", "time_off.ends_on", "time_off.note", "time_off.status", "time_off.decided_at", "time_off.created_at"])
+    .where("guards.site_id", "=", siteId)
+    .orderBy(sql`time_off.status = 'requested'`, "desc")
+    .orderBy("time_off.starts_on")
+    .execute();
+}
+
+export async function insertTimeOff(handle: Handle, request: { guardId: number; startsOn: string; endsOn: string; note: string }) {
+  return handle
+    .insertInto("time_off")
+    .values({ guard_id: request.guardId, starts_on: request.startsOn, ends_on: request.endsOn, note: request.note })
+    .returning(["id", "guard_id", "starts_on", "ends_on", "note", "status", "created_at"])
+    .executeTakeFirstOrThrow();
+}
+
+/** Approves or declines an open request; null when there is no such open request. */
+export async function decideTimeOff(handle: Handle, id: number, status: Exclude<TimeOffStatus, "requested">, userId: number) {
+  return (
+    (await handle
+      .updateTable("time_off")
+      .set({ status, decided_by: userId, decided_at: sql<Date>`now()` })
+      .where("id", "=", id)
+      .where("status", "=", "requested")
+      .returning(["id", "guard_id", "starts_on", "ends_on", "note", "status", "decided_at"])
+      .executeTakeFirst()) ?? null
+  );
+}

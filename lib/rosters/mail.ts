@@ -1,0 +1,81 @@
+// The publish mail job: every guard with shifts in a published roster gets an e-mail listing them
+// in the site's time zone, with the shifts as an iCalendar attachment. Guards already mailed by an
+// earlier attempt of the same job (recorded in its result) are not mailed twice.
+import type { Kysely } from "kysely";
+import { TZDate } from "@date-fns/tz";
+import { format } from "date-fns";
+import type { Database } from "@/db/schema";
+import { rosterById, shiftsOfRoster, siteById } from "@/db/queries/rosters";
+import { calendarText } from "@/lib/calendar/ics";
+import { sendMail } from "@/lib/mail/transport";
+import { roomsOfScenario, shiftEvents, shiftPlan, shiftWhen, type ShiftForPeople } from "./shift-events";
+
+export interface MailProgress {
+  sent: number[];
+}
+
+type Progress = (fraction: number, message: string, partial?: MailProgress) => Promise<void>;
+
+/** The personal feed address, when the app knows its own address (NEXTAUTH_URL). */
+export function feedUrl(token: string): string | null {
+  const base = process.env.NEXTAUTH_URL;
+  return base ? `${base.replace(/\/$/, "")}/api/calendar/${token}` : null;
+}
+
+export async function mailPublishedRoster(
+  db: Kysely<Database>,
+  rosterId: number,
+  alreadySent: readonly number[] = [],
+  progress: Progress = async () => {},
+): Promise<{ sent: number[]; summary: string }> {
+  const roster = await rosterById(db, rosterId);
+  if (!roster || roster.status !== "published") throw new Error(`roster ${rosterId} is not a published roster; nothing to mail`);
+  const site = await siteById(db, roster.site_id);
+  if (!site) throw new Error(`the site of roster ${rosterId} no longer exists`);
+  const zone = site.time_zone;
+  const rooms = roomsOfScenario(roster.scenario);
+  const shifts = await shiftsOfRoster(db, roster.id);
+  const guardIds = [...new Set(shifts.map((s) => s.guard_id))];
+  const guards = guardIds.length
+    ? await db.selectFrom("guards").select(["id", "name", "email", "calendar_token"]).where("id", "in", guardIds).orderBy("id").execute()
+    : [];
+  const sent = [...alreadySent];
+  const week = format(new TZDate(`${roster.starts_on}T12:00:00Z`, zone), "d MMM yyyy");
+  let done = 0;
+  for (const guard of guards) {
+    done++;
+    if (sent.includes(guard.id)) continue;
+    const own: ShiftForPeople[] = shifts
+      .filter((s) => s.guard_id === guard.id)
+      .map((s) => ({ ...s, roster_version: roster.version }));
+    const lines = own.map((s) => `${shiftWhen(s, zone)}\n${shiftPlan(s, zone, rooms).map((line) => `  ${line}`).join("\n")}`);
+    const feed = feedUrl(guard.calendar_token);
+    const text = [
+      `Hello ${guard.name},`,
+      "",
+      `the roster for the week of ${week} at ${site.name} is published (version ${roster.version}${roster.supersedes ? ", replacing the earlier version" : ""}).`,
+      `Your shifts (times in ${zone}):`,
+      "",
+      ...lines,
+      "",
+      "The attached shifts.ics adds them to your calendar.",
+      ...(feed ? [`Your personal calendar feed stays current with every new version: ${feed}`] : []),
+      "",
+      "Sightward",
+    ].join("\n");
+    const ics = calendarText(shiftEvents(own, zone, site.name, rooms), {
+      name: `${site.name} shifts`,
+      timeZone: zone,
+      method: "PUBLISH",
+    });
+    await sendMail({
+      to: guard.email,
+      subject: `Your shifts, week of ${week} (version ${roster.version})`,
+      text,
+      attachments: [{ filename: "shifts.ics", content: ics, contentType: "text/calendar; charset=utf-8; method=PUBLISH" }],
+    });
+    sent.push(guard.id);
+    await progress(done / guards.length, `mailed ${sent.length} of ${guards.length} guards`, { sent });
+  }
+  return { sent, summary: `mailed ${guards.length} guards their shifts of version ${roster.version}` };
+}

@@ -1,0 +1,103 @@
+// From the database's rows to the staffing engine's scenario (INTERFACES.md roster input): the
+// site's zone, opening hours and hourly rate, the approved posts, the guards with their contracts
+// and skills, approved time off as unavailability, and the default rules.
+import { parseScenario, type Scenario } from "@/lib/scheduling/scenario";
+import { addLocalDays } from "@/lib/scheduling/time";
+import type { OpeningHours } from "@/db/schema";
+
+export const ROSTER_DAYS = 7;
+
+export interface SiteRow {
+  id: number;
+  time_zone: string;
+  hourly_rate: number;
+  opening_hours: OpeningHours;
+}
+
+export interface PostRow {
+  id: string;
+  room: string;
+  skills: string[];
+}
+
+export interface GuardRow {
+  id: number;
+  name: string;
+  email: string;
+  contract_hours: number;
+  max_hours: number;
+  skills: string[];
+}
+
+export interface TimeOffRow {
+  guard_id: number;
+  /** First and last day off, inclusive, as the site's calendar dates. */
+  starts_on: string;
+  ends_on: string;
+}
+
+export interface ScenarioRows {
+  site: SiteRow;
+  startsOn: string;
+  days?: number;
+  posts: PostRow[];
+  guards: GuardRow[];
+  timeOff: TimeOffRow[];
+}
+
+/** The engine's id of a guard: "G" and the database id, so messages and output name guards uniquely. */
+export function guardKey(guardId: number): string {
+  return `G${guardId}`;
+}
+
+/** The database id behind an engine guard id, or null when it is not one of ours. */
+export function guardIdOfKey(key: string): number | null {
+  const match = /^G(\d+)$/.exec(key);
+  return match ? Number(match[1]) : null;
+}
+
+/** True when `date` (YYYY-MM-DD) is a Monday: rosters run Monday to Sunday. */
+export function isMonday(date: string): boolean {
+  if (!/^\d{4}-\d{2}-\d{2}$/.test(date)) return false;
+  const [y, m, d] = date.split("-").map(Number);
+  const day = new Date(Date.UTC(y!, m! - 1, d!));
+  return day.getUTCFullYear() === y && day.getUTCMonth() === m! - 1 && day.getUTCDate() === d && day.getUTCDay() === 1;
+}
+
+/**
+ * Assembles and validates the scenario. Time off from day A to day B (inclusive) makes the guard
+ * unavailable from A 00:00 to the midnight after B, in the site's zone; requests outside the
+ * period are left out. Throws with the engine's field messages when a row breaks the scenario.
+ */
+export function assembleScenario(rows: ScenarioRows): Scenario {
+  const zone = rows.site.time_zone;
+  const days = rows.days ?? ROSTER_DAYS;
+  const periodEnd = addLocalDays(zone, rows.startsOn, days);
+  const input = {
+    timezone: zone,
+    start: rows.startsOn,
+    days,
+    opening: { weekly: rows.site.opening_hours.weekly, dates: rows.site.opening_hours.dates ?? {} },
+    posts: rows.posts.map((post) => ({ id: post.id, room: post.room, skills: [...post.skills] })),
+    guards: [...rows.guards]
+      .sort((a, b) => a.id - b.id)
+      .map((guard) => ({
+        id: guardKey(guard.id),
+        name: guard.name,
+        email: guard.email,
+        contractHours: Number(guard.contract_hours),
+        maxHours: Number(guard.max_hours),
+        skills: [...guard.skills],
+        unavailable: rows.timeOff
+          .filter((off) => off.guard_id === guard.id && off.starts_on < periodEnd && off.ends_on >= rows.startsOn)
+          .sort((a, b) => a.starts_on.localeCompare(b.starts_on))
+          .map((off) => ({ start: `${off.starts_on}T00:00`, end: `${addLocalDays(zone, off.ends_on, 1)}T00:00` })),
+      })),
+    rules: { hourlyRate: Number(rows.site.hourly_rate) },
+  };
+  const parsed = parseScenario(input);
+  if (!parsed.ok) {
+    throw new Error(`the roster scenario is not valid: ${parsed.errors.map((e) => `${e.field}: ${e.message}`).join("; ")}`);
+  }
+  return parsed.scenario;
+}

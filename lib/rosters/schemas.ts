@@ -1,0 +1,51 @@
+// The roster API's input, one zod schema each: they type the route handlers and drive the forms.
+import { z } from "zod";
+import { isMonday } from "./scenario";
+
+const isoDate = z.string().regex(/^\d{4}-\d{2}-\d{2}$/, "use a date like 2027-03-22");
+const monday = isoDate.refine(isMonday, "a roster week starts on a Monday; pick a Monday");
+const positiveId = (what: string) => z.coerce.number({ error: `${what} must be a number` }).int(`${what} must be a whole number`).positive(`${what} must be positive`);
+
+export const rosterIdSchema = z.object({ id: positiveId("id") });
+
+export const weekQuerySchema = z.object({ startsOn: monday });
+
+export const buildRequestSchema = z.object({ startsOn: monday });
+export type BuildRequestBody = z.infer<typeof buildRequestSchema>;
+
+export const publishRequestSchema = z.object({
+  revision: z.number({ error: "revision must be the draft revision you loaded" }).int().positive(),
+});
+
+export const reassignRequestSchema = z.object({
+  revision: z.number({ error: "revision must be the draft revision you loaded" }).int().positive(),
+  from: z.object({
+    /** Whose segment; null for an unfilled post-slot. */
+    guardId: z.number().int().positive().nullable(),
+    post: z.string().min(1, "post is required").max(100),
+    start: z.iso.datetime({ offset: true, error: "start must be an ISO date-time, e.g. 2027-03-23T09:00:00.000Z" }),
+  }),
+  toGuardId: z.number({ error: "toGuardId must be a guard id" }).int().positive(),
+});
+export type ReassignRequestBody = z.infer<typeof reassignRequestSchema>;
+
+/** A guard's request for days off: first and last day, inclusive, and a note for operations. */
+export const timeOffRequestSchema = z
+  .object({
+    startsOn: isoDate,
+    endsOn: isoDate,
+    note: z.string().trim().max(500, "keep the note under 500 characters").default(""),
+  })
+  .refine((request) => request.endsOn >= request.startsOn, { path: ["endsOn"], message: "the last day off cannot be before the first" })
+  .refine((request) => dayDifference(request.startsOn, request.endsOn) <= 62, { path: ["endsOn"], message: "ask for at most 62 days at once" });
+export type TimeOffRequestBody = z.input<typeof timeOffRequestSchema>;
+
+export const timeOffDecisionSchema = z.object({
+  status: z.enum(["approved", "declined"], { error: "status must be approved or declined" }),
+});
+
+export const calendarTokenSchema = z.object({ token: z.string().regex(/^[0-9a-f]{64}$/, "not a calendar address") });
+
+function dayDifference(from: string, to: string): number {
+  return (Date.parse(`${to}T00:00:00Z`) - Date.parse(`${from}T00:00:00Z`)) / 86_400_000;
+}

@@ -1,0 +1,63 @@
+// A guard's shifts as people read them: lines for an e-mail and events for a calendar, in the
+// site's time zone, posts named by room.
+import { TZDate } from "@date-fns/tz";
+import { format } from "date-fns";
+import type { ShiftBreak, ShiftSegment } from "@/db/schema";
+import type { CalendarEvent } from "@/lib/calendar/ics";
+
+export interface ShiftForPeople {
+  guard_id: number;
+  starts_at: Date;
+  ends_at: Date;
+  segments: ShiftSegment[];
+  breaks: ShiftBreak[];
+  roster_version: number;
+}
+
+/** "Textile Gallery · post 2" from the post id "R7-P2" and the room's name (post plan convention). */
+export function postLabel(postId: string, rooms: ReadonlyMap<string, string>): string {
+  const room = rooms.get(postId);
+  const number = /-P(\d+)$/.exec(postId)?.[1];
+  return room ? (number ? `${room} · post ${number}` : room) : postId;
+}
+
+/** Post id -> room name, from the posts of a roster's scenario. */
+export function roomsOfScenario(scenario: unknown): Map<string, string> {
+  const posts = (scenario as { posts?: { id: string; room?: string }[] } | null)?.posts ?? [];
+  return new Map(posts.map((p) => [p.id, p.room ?? ""]));
+}
+
+const clock = (instant: Date | string, zone: string) => format(new TZDate(new Date(instant), zone), "HH:mm");
+
+/** "Tue 8 Dec 2026, 10:00–18:00" in the site's zone. */
+export function shiftWhen(shift: Pick<ShiftForPeople, "starts_at" | "ends_at">, zone: string): string {
+  return `${format(new TZDate(shift.starts_at, zone), "EEE d MMM yyyy, HH:mm")}–${clock(shift.ends_at, zone)}`;
+}
+
+/** The shift's plan, one stretch per line: "10:00–12:00 Textile Gallery · post 1", "14:00–15:00 break". */
+export function shiftPlan(shift: ShiftForPeople, zone: string, rooms: ReadonlyMap<string, string>): string[] {
+  const parts = [
+    ...shift.segments.map((s) => ({ start: s.start, text: `${clock(s.start, zone)}–${clock(s.end, zone)} ${postLabel(s.post, rooms)}` })),
+    ...shift.breaks.map((b) => ({ start: b.start, text: `${clock(b.start, zone)}–${clock(b.end, zone)} break` })),
+  ];
+  return parts.sort((a, b) => new Date(a.start).getTime() - new Date(b.start).getTime()).map((p) => p.text);
+}
+
+/**
+ * One calendar event per shift. The UID names guard and start, so a later version of the same
+ * shift replaces it in the guard's calendar (SEQUENCE = roster version).
+ */
+export function shiftEvents(shifts: readonly ShiftForPeople[], zone: string, siteName: string, rooms: ReadonlyMap<string, string>): CalendarEvent[] {
+  return shifts.map((shift) => {
+    const posts = [...new Set(shift.segments.map((s) => postLabel(s.post, rooms)))];
+    return {
+      uid: `shift-${shift.guard_id}-${new Date(shift.starts_at).toISOString()}@sightward.example.org`,
+      start: new Date(shift.starts_at),
+      end: new Date(shift.ends_at),
+      summary: `Shift: ${posts.slice(0, 2).join(", ")}${posts.length > 2 ? ` and ${posts.length - 2} more` : ""}`,
+      description: [`Times in ${zone}.`, ...shiftPlan(shift, zone, rooms), `Roster version ${shift.roster_version}.`].join("\n"),
+      location: siteName,
+      sequence: shift.roster_version,
+    };
+  });
+}

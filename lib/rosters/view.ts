@@ -1,0 +1,95 @@
+// What the staffing page shows: a week's draft and published versions, and one roster in full
+// (shifts by guard name, posts by room, unfilled hours with reasons, totals, violations).
+import type { Kysely } from "kysely";
+import type { Database, RosterTotals, RosterUnfilled, RosterViolation, ShiftBreak, ShiftSegment } from "@/db/schema";
+import { latestJobMatching } from "@/db/queries/jobs";
+import { draftOfWeek, guardsOfSite, publishedVersionsOfWeek, rosterById, shiftsOfRoster, siteById } from "@/db/queries/rosters";
+import { openingOf } from "@/lib/scheduling/demand";
+import { addLocalDays } from "@/lib/scheduling/time";
+import { rosterScenario } from "./edit";
+import { ROSTER_BUILD_JOB } from "./publish";
+import { postLabel, roomsOfScenario } from "./shift-events";
+
+export interface RosterView {
+  id: number;
+  siteId: number;
+  siteName: string;
+  timeZone: string;
+  startsOn: string;
+  days: { date: string; opening: [string, string] | null }[];
+  status: "draft" | "published";
+  version: number;
+  revision: number;
+  publishedAt: string | null;
+  supersedes: number | null;
+  posts: { id: string; label: string; skills: string[] }[];
+  guards: { id: number; name: string; skills: string[] }[];
+  shifts: { id: number; guardId: number; guardName: string; start: string; end: string; segments: ShiftSegment[]; breaks: ShiftBreak[] }[];
+  unfilled: (RosterUnfilled & { label: string })[];
+  totals: RosterTotals | null;
+  violations: RosterViolation[];
+}
+
+export async function rosterView(db: Kysely<Database>, rosterId: number): Promise<RosterView | null> {
+  const roster = await rosterById(db, rosterId);
+  if (!roster) return null;
+  const [site, shifts, guards] = await Promise.all([siteById(db, roster.site_id), shiftsOfRoster(db, roster.id), guardsOfSite(db, roster.site_id)]);
+  if (!site) return null;
+  const scenario = rosterScenario(roster);
+  const rooms = roomsOfScenario(scenario);
+  const onStaff = new Set(scenario.guards.map((g) => g.id));
+  return {
+    id: roster.id,
+    siteId: site.id,
+    siteName: site.name,
+    timeZone: site.time_zone,
+    startsOn: roster.starts_on,
+    days: Array.from({ length: roster.days }, (_, day) => {
+      const date = addLocalDays(site.time_zone, roster.starts_on, day);
+      return { date, opening: openingOf(scenario, date) };
+    }),
+    status: roster.status,
+    version: roster.version,
+    revision: roster.revision,
+    publishedAt: roster.published_at?.toISOString() ?? null,
+    supersedes: roster.supersedes,
+    posts: scenario.posts.map((p) => ({ id: p.id, label: postLabel(p.id, rooms), skills: p.skills })),
+    guards: guards.filter((g) => onStaff.has(`G${g.id}`)).map((g) => ({ id: g.id, name: g.name, skills: g.skills })),
+    shifts: shifts.map((s) => ({
+      id: s.id,
+      guardId: s.guard_id,
+      guardName: s.guard_name,
+      start: s.starts_at.toISOString(),
+      end: s.ends_at.toISOString(),
+      segments: s.segments,
+      breaks: s.breaks,
+    })),
+    unfilled: roster.unfilled.map((u) => ({ ...u, label: postLabel(u.post, rooms) })),
+    totals: roster.totals,
+    violations: roster.violations,
+  };
+}
+
+export interface WeekOverview {
+  startsOn: string;
+  draft: { id: number; revision: number; createdAt: string; totals: RosterTotals | null; violations: number } | null;
+  published: { id: number; version: number; publishedAt: string | null; supersedes: number | null }[];
+  build: { id: number; status: string; progress: number; message: string } | null;
+}
+
+export async function weekOverview(db: Kysely<Database>, siteId: number, startsOn: string): Promise<WeekOverview> {
+  const [draft, published, build] = await Promise.all([
+    draftOfWeek(db, siteId, startsOn),
+    publishedVersionsOfWeek(db, siteId, startsOn),
+    latestJobMatching(db, ROSTER_BUILD_JOB, { siteId, startsOn }),
+  ]);
+  return {
+    startsOn,
+    draft: draft
+      ? { id: draft.id, revision: draft.revision, createdAt: draft.created_at.toISOString(), totals: draft.totals, violations: draft.violations.length }
+      : null,
+    published: published.map((p) => ({ id: p.id, version: p.version, publishedAt: p.published_at?.toISOString() ?? null, supersedes: p.supersedes })),
+    build: build ? { id: build.id, status: build.status, progress: build.progress, message: build.message } : null,
+  };
+}
+
