@@ -26,6 +26,6 @@ export default async function proxy(request: NextRequest) {
 }
 
 export const config = {
-  // Everything except route handlers, Next.js assets and static files.
-  matcher: ["/((?!api/|_next/|favicon.ico|robots.txt).*)"],
+  // Everything except route handlers, Next.js assets and files such as /icon.svg.
+  matcher: ["/((?!api/|_next/|[^/]+\\.(?:svg|ico|png|txt|xml|webmanifest)$).*)"],
 };
