@@ -8,19 +8,8 @@ import { certifyCoverage } from "@/lib/geometry/coverage";
 import { triangulate } from "@/lib/geometry/triangulate";
 import { createSightlines } from "@/lib/geometry/visibility";
 import type { Point, Room } from "@/lib/geometry/types";
-import { distanceToSegment, insideRoom, samplePoints, walls, watchers } from "./sampler";
+import { expectSeen } from "./expect-seen";
 import { agplibRoom, prepared } from "./rooms";
-
-/** Every sampled point is seen by `demand` posts, and every post stands in the room or on a wall. */
-export function expectSeen(room: Room, plan: FewestPlan, demand = 1, range = Infinity, samples = 400) {
-  const wallList = walls(room);
-  for (const post of plan.posts) {
-    expect(insideRoom(post, room) || wallList.some(([a, b]) => distanceToSegment(post, a, b) < 1e-9), `post ${post}`).toBe(true);
-  }
-  for (const p of samplePoints(room, samples, 1e-4, 17)) {
-    expect(watchers(p, plan.posts, room, range, wallList), `point ${p}`).toBeGreaterThanOrEqual(demand);
-  }
-}
 
 describe("known minima", () => {
   // Chvátal (1975): the comb with k prongs needs k posts; no point sees the tips of two prongs.
