@@ -19,6 +19,8 @@ export NEXTAUTH_URL=${NEXTAUTH_URL:-http://127.0.0.1:$PORT}
 export NEXT_TELEMETRY_DISABLED=1
 
 mkdir -p "$ROOT/.data/logs"
+reap_orphan "app-$PORT" "the app"
+reap_orphan "mail-fake-$SMTP_PORT" "the mail fake"
 ensure_node_modules
 # Check the ports first, so a clash is reported before anything starts.
 require_free_port "$PORT" PORT "the app"
@@ -40,7 +42,6 @@ else
 fi
 require_free_port "$PORT" PORT "the app"
 next_serve "$PORT"
-mkdir -p "$ROOT/.data/run" && printf '%s\n' "$APP_PID" >"$ROOT/.data/run/app.pid"
 
 cat >&2 <<MSG
 

@@ -42,6 +42,8 @@ summary() {
 on_cleanup summary
 
 mkdir -p "$ROOT/.data/logs"
+reap_orphan "app-$TEST_PORT" "the app under test"
+reap_orphan "mail-fake-$SMTP_PORT" "the test mail fake"
 phase "set-up: packages, chromium, PostgreSQL, database sightward_test, mail fake"
 ensure_node_modules
 if [ ! -x "$CHROMIUM_PATH" ]; then
@@ -50,9 +52,13 @@ if [ ! -x "$CHROMIUM_PATH" ]; then
 fi
 require_free_port "$TEST_PORT" TEST_PORT "the app under test"
 require_free_port "$SMTP_PORT" TEST_SMTP_PORT "the test mail fake"
-if [ -f "$ROOT/.data/run/app.pid" ] && pid_alive "$(cat "$ROOT/.data/run/app.pid")"; then
-  say "warning: npm start is serving this checkout (pid $(cat "$ROOT/.data/run/app.pid")); next build below replaces its .next"
-fi
+for pidfile in "$ROOT"/.data/run/app-*.pid; do
+  [ -f "$pidfile" ] || continue
+  read -r app_pid _ <"$pidfile" || true
+  if pid_alive "$app_pid" && [ "$pidfile" != "$ROOT/.data/run/app-$TEST_PORT.pid" ]; then
+    say "warning: npm start serves this checkout (pid $app_pid); the next build below replaces the .next folder it serves"
+  fi
+done
 
 pg_start
 pg_recreate_database sightward_test

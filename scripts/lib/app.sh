@@ -14,7 +14,7 @@ mail_fake_start() {
   mkdir -p "$MAIL_DIR" "$ROOT/.data/logs"
   local log="$ROOT/.data/logs/mail-catcher-$SMTP_PORT.log"
   : >"$log"
-  start_service "mail fake" "$log" "$TSX" "$ROOT/scripts/mail-catcher.ts"
+  start_service "mail fake" "mail-fake-$SMTP_PORT" "$log" "$TSX" "$ROOT/scripts/mail-catcher.ts"
   MAIL_FAKE_PID=$SERVICE_PID
   wait_for_port "$SMTP_PORT" "$MAIL_FAKE_PID" "the mail fake" 60 || { cat "$log" >&2; die "the mail fake did not start (log: $log)"; }
   say "mail fake on 127.0.0.1:$SMTP_PORT (pid $MAIL_FAKE_PID), messages in $MAIL_DIR"
@@ -38,14 +38,8 @@ next_build() {
 # Serve the built app on 127.0.0.1:PORT; sets APP_PID. Output to LOG when given, else the terminal.
 next_serve() {
   local port=$1 log=${2:-}
-  if [ -n "$log" ]; then
-    : >"$log"
-    start_service "the app (next start)" "$log" env NEXT_TELEMETRY_DISABLED=1 "$NEXT" start -H 127.0.0.1 -p "$port"
-  else
-    (cd "$ROOT" && NEXT_TELEMETRY_DISABLED=1 exec setsid "$NEXT" start -H 127.0.0.1 -p "$port" </dev/null) &
-    SERVICE_PID=$!
-    remember_pid "$SERVICE_PID" "the app (next start)"
-  fi
+  [ -n "$log" ] && : >"$log"
+  start_service "the app (next start)" "app-$port" "${log:--}" "$NEXT" start -H 127.0.0.1 -p "$port"
   APP_PID=$SERVICE_PID
   wait_for_http "http://127.0.0.1:$port/api/health" "$APP_PID" "the app" 120 ||
     { [ -n "$log" ] && tail -n 40 "$log" >&2; die "the app did not start on port $port"; }

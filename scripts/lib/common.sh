@@ -89,13 +89,33 @@ install_cleanup_trap() {
 }
 
 # Start a background service in its own process group (so stopping it stops its children too),
-# logging to a file; sets SERVICE_PID.
+# logging to a file (or to the terminal when LOG is "-"); sets SERVICE_PID. KEY names its pid
+# file in .data/run, so a later run can stop it if this script is killed outright.
 start_service() {
-  local name=$1 log=$2
-  shift 2
-  setsid "$@" >>"$log" 2>&1 </dev/null &
+  local name=$1 key=$2 log=$3
+  shift 3
+  if [ "$log" = "-" ]; then
+    setsid "$@" </dev/null &
+  else
+    setsid "$@" >>"$log" 2>&1 </dev/null &
+  fi
   SERVICE_PID=$!
   remember_pid "$SERVICE_PID" "$name"
+  mkdir -p "$ROOT/.data/run"
+  printf '%s %s\n' "$SERVICE_PID" "$$" >"$ROOT/.data/run/$key.pid"
+}
+
+# A service left running by an earlier run of ours that was killed outright (its starter is gone)
+# holds the port we need: stop it, by the pid we recorded.
+reap_orphan() {
+  local key=$1 name=$2 file="$ROOT/.data/run/$1.pid" pid owner
+  [ -f "$file" ] || return 0
+  read -r pid owner <"$file" || true
+  if pid_alive "$pid" && ! pid_alive "$owner" && grep -qF "$ROOT" "/proc/$pid/cmdline" "/proc/$pid/environ" 2>/dev/null; then
+    say "stopping $name (pid $pid) left running by an earlier run that was killed"
+    stop_pid "$pid" "$name"
+  fi
+  pid_alive "$pid" || rm -f "$file"
 }
 
 # Wait until URL answers any HTTP status (curl, else node fetch), or the pid dies, or timeout.
