@@ -1,0 +1,85 @@
+// The plan preview behind POST /api/post-plans/preview, kept free of the web framework so it can be
+// tested without a server: read the body (zod), validate the room, answer the `posts` command's room
+// JSON with the fewest plan under the museum's constraints, or a problem a curator can act on.
+import { z } from "zod";
+import type { Point } from "../geometry/types";
+import { roomsFromGeoJson } from "../geometry/geojson";
+import { planRoomReport, type RoomReport } from "./room-report";
+import { fewestReport, planFewest } from "./fewest";
+import { prepareRoom } from "../geometry/room";
+import { triangulate } from "../geometry/triangulate";
+
+/** The preview answers while the editor waits: at most this many seconds per request. */
+export const PREVIEW_MAX_SECONDS = 10;
+const PREVIEW_DEFAULT_SECONDS = 2;
+
+const point = z.tuple([z.number().finite(), z.number().finite()]);
+const geometry = z.object({ type: z.literal("Polygon"), coordinates: z.array(z.array(z.array(z.number()))) }).passthrough();
+const feature = z.object({ type: z.literal("Feature"), geometry, properties: z.record(z.string(), z.unknown()).nullish() }).passthrough();
+
+const constraints = {
+  sightRange: z.number().positive().max(1e6).optional(),
+  pinned: z.array(point).max(1000).optional(),
+  forbidden: z.array(z.array(point).min(3)).max(1000).optional(),
+  doubleCover: z.boolean().optional(),
+  timeLimit: z.number().positive().max(PREVIEW_MAX_SECONDS).optional(),
+};
+
+/** Either { room: Feature | Polygon, ...constraints } or the Feature/Polygon itself with the constraints beside its fields. */
+export const previewBodySchema = z.union([
+  z.object({ room: z.union([feature, geometry]), ...constraints }),
+  feature.extend(constraints),
+  geometry.extend(constraints),
+]);
+export type PreviewBody = z.infer<typeof previewBodySchema>;
+
+export type PreviewAnswer =
+  | { status: 200; body: { room: RoomReport } }
+  | { status: 422; body: { error: { code: string; message: string; at?: Point; field?: string } } };
+
+function problem(code: string, message: string, extra: { at?: Point; field?: string } = {}): PreviewAnswer {
+  return { status: 422, body: { error: { ...extra, code, message } } };
+}
+
+/** Plans one room from an API body that is not yet trusted. */
+export function previewPostPlan(input: unknown): PreviewAnswer {
+  const parsed = previewBodySchema.safeParse(input);
+  if (!parsed.success) {
+    const issue = parsed.error.issues[0];
+    const field = issue.path.length ? issue.path.map(String).join(".") : "(body)";
+    return problem("invalid-input", `Invalid input: ${field}: ${issue.message}`, { field });
+  }
+  const body = parsed.data;
+  const geojson = "room" in body && body.room ? body.room : body;
+  const read = roomsFromGeoJson(geojson, "room");
+  if (read.errors.length) return problem(read.errors[0].code, read.errors[0].message);
+  const named = read.rooms[0];
+  if (!named) return problem("too-few-points", "the body holds no room polygon");
+  const sightRange = body.sightRange ?? named.sightRange;
+
+  const outcome = planRoomReport(named, { guaranteedOnly: true, sightRange });
+  if (!outcome.ok) {
+    const first = outcome.errors[0];
+    return problem(first.code, first.message, first.at ? { at: first.at } : {});
+  }
+  const prepared = prepareRoom(named.room);
+  if (!prepared.ok) return problem(prepared.problems[0].code, prepared.problems[0].message);
+  const report = outcome.report;
+  const started = performance.now();
+  const plan = planFewest(prepared.room, {
+    triangulation: triangulate(prepared.room),
+    guaranteedPosts: report.guaranteed.posts,
+    sightRange,
+    pinned: body.pinned as Point[] | undefined,
+    forbidden: body.forbidden as Point[][] | undefined,
+    doubleCover: body.doubleCover,
+    timeLimit: body.timeLimit ?? PREVIEW_DEFAULT_SECONDS,
+  });
+  if (plan.problems.length) {
+    const first = plan.problems[0];
+    return problem(first.code, first.message, first.at ? { at: first.at } : {});
+  }
+  report.fewest = fewestReport(plan);
+  report.ms.fewest = Math.round((performance.now() - started) * 1000) / 1000;
+  return { status: 200, body: { room: report } };
+}
