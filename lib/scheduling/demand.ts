@@ -54,17 +54,19 @@ export function buildDemand(scenario: Scenario): Demand {
   for (let day = 0; day <= scenario.days; day++) {
     dayStarts.push(localToInstant(zone, addLocalDays(zone, scenario.start, day)));
   }
+  let previousClose = -Infinity;
   for (let day = 0; day < scenario.days; day++) {
     const date = addLocalDays(zone, scenario.start, day);
     const hours = openingOf(scenario, date);
-    if (!hours) {
+    const opensAt = hours ? localToInstant(zone, date, hours[0]) : 0;
+    // A day still open from the night before starts where that opening ends (no slot is demanded twice).
+    if (!hours || Math.max(opensAt, previousClose) >= closingOf(zone, date, hours, opensAt)) {
       days.push({ day, date, open: null, close: null, slots: [] });
       continue;
     }
-    const open = localToInstant(zone, date, hours[0]);
-    let close = localToInstant(zone, date, hours[1]);
-    // Closing at or before opening means past midnight.
-    if (close <= open) close = localToInstant(zone, addLocalDays(zone, date, 1), hours[1]);
+    const open = Math.max(opensAt, previousClose);
+    const close = closingOf(zone, date, hours, opensAt);
+    previousClose = close;
     const indices: number[] = [];
     for (let t = open; t < close; t += slotMs) {
       indices.push(slots.length);
@@ -75,6 +77,12 @@ export function buildDemand(scenario: Scenario): Demand {
   const unavailable = new Map<string, { start: number; end: number }[]>();
   for (const guard of scenario.guards) unavailable.set(guard.id, guardUnavailability(zone, guard));
   return { zone, days, slots, posts: scenario.posts, unavailable, dayStarts, closed: new Map() };
+}
+
+/** Closing instant; a closing at or before the opening time means past midnight. */
+function closingOf(zone: string, date: string, hours: [string, string], opensAt: number): number {
+  const close = localToInstant(zone, date, hours[1]);
+  return close <= opensAt ? localToInstant(zone, addLocalDays(zone, date, 1), hours[1]) : close;
 }
 
 function guardUnavailability(zone: string, guard: Guard): { start: number; end: number }[] {

@@ -46,4 +46,14 @@ describe("opening hours", () => {
     expect(demandPostHours(half)).toBe(demandPostHours(hourly));
     expect(demandPostHours(hourly)).toBe(16);
   });
+
+  it("a night opening past midnight into the autumn change counts real hours, and an overlapping next day is not demanded twice", () => {
+    // Saturday 2027-10-30 18:00 to Sunday 04:00 spans the 03:00 -> 02:00 change: 11 real hours; Sunday then opens at 04:00.
+    const demand = buildDemand(scenario({ start: "2027-10-30", days: 2, opening: { weekly: { sat: ["18:00", "04:00"], sun: ["00:00", "24:00"] } } }));
+    expect(demand.days[0].slots).toHaveLength(11);
+    expect(demand.days[1].slots).toHaveLength(20);
+    const starts = demand.slots.map((s) => s.start);
+    expect(new Set(starts).size).toBe(starts.length);
+    expect(formatLocal("Europe/Berlin", demand.slots[demand.days[1].slots[0]].start)).toBe("2027-10-31T04:00");
+  });
 });
