@@ -56,6 +56,15 @@ export function guardIdOfKey(key: string): number | null {
   return match ? Number(match[1]) : null;
 }
 
+function isTimeZone(zone: string): boolean {
+  try {
+    new Intl.DateTimeFormat("en", { timeZone: zone });
+    return true;
+  } catch {
+    return false;
+  }
+}
+
 /** True when `date` (YYYY-MM-DD) is a Monday: rosters run Monday to Sunday. */
 export function isMonday(date: string): boolean {
   if (!/^\d{4}-\d{2}-\d{2}$/.test(date)) return false;
@@ -71,6 +80,7 @@ export function isMonday(date: string): boolean {
  */
 export function assembleScenario(rows: ScenarioRows): Scenario {
   const zone = rows.site.time_zone;
+  if (!isTimeZone(zone)) throw new Error(`the roster scenario is not valid: timezone: unknown IANA time zone ${JSON.stringify(zone)}; set the site's time zone`);
   const days = rows.days ?? ROSTER_DAYS;
   const periodEnd = addLocalDays(zone, rows.startsOn, days);
   const input = {
