@@ -2,9 +2,23 @@
 // Route handlers under /api check on their own (lib/api/require-role.ts) and answer JSON.
 import { NextResponse, type NextRequest } from "next/server";
 import { getToken } from "next-auth/jwt";
-import { can, isRole, permissionForPath } from "@/lib/auth/roles";
+import { db } from "@/db";
+import { can, isRole, permissionForPath, type Role } from "@/lib/auth/roles";
 
 const PUBLIC_PATHS = ["/sign-in", "/forbidden"];
+
+// The token remembers the role at sign-in; before refusing, ask the database whether an admin has
+// since granted more. Pages re-check from the database too, so a withdrawn role is caught there.
+async function roleNow(userId: number | undefined, remembered: Role): Promise<Role> {
+  if (typeof userId !== "number") return remembered;
+  try {
+    const row = await db.selectFrom("users").select("role").where("id", "=", userId).executeTakeFirst();
+    return row && isRole(row.role) ? row.role : remembered;
+  } catch {
+    // Database down: keep the token's answer; the page itself will say the database is unavailable.
+    return remembered;
+  }
+}
 
 export default async function proxy(request: NextRequest) {
   const { pathname, search } = request.nextUrl;
@@ -18,7 +32,7 @@ export default async function proxy(request: NextRequest) {
   }
 
   const permission = permissionForPath(pathname);
-  if (permission && !can(token.role, permission)) {
+  if (permission && !can(token.role, permission) && !can(await roleNow(token.uid, token.role), permission)) {
     // The /forbidden page calls forbidden(), so the answer carries status 403 and keeps the address.
     return NextResponse.rewrite(new URL("/forbidden", request.url));
   }

@@ -153,6 +153,22 @@ describe("PATCH /api/users/[id] (users:manage)", () => {
     expect((await targetUser.request("/api/users")).status).toBe(403);
   });
 
+  it("pages follow a role change too: a promotion opens them, a demotion closes them (403)", async () => {
+    const target = await db.selectFrom("users").select("email").where("id", "=", targetId).executeTakeFirstOrThrow();
+    const { who: targetUser } = await signedIn(target.email, DEMO_PASSWORD);
+    expect((await targetUser.request("/people")).status).toBe(403);
+
+    expect((await who("admin").request(`/api/users/${targetId}`, { method: "PATCH", json: { role: "operations" } })).status).toBe(200);
+    // The token still says guard; the proxy asks the database before refusing.
+    expect((await targetUser.request("/people")).status).toBe(200);
+    const { who: promotedUser } = await signedIn(target.email, DEMO_PASSWORD);
+
+    expect((await who("admin").request(`/api/users/${targetId}`, { method: "PATCH", json: { role: targetRole } })).status).toBe(200);
+    // This token says operations; the page re-reads the role and refuses.
+    expect((await promotedUser.request("/people")).status).toBe(403);
+    expect((await targetUser.request("/people")).status).toBe(403);
+  });
+
   it("refuses to demote the only administrator (409), writing nothing", async () => {
     const admins = await db.selectFrom("users").select("id").where("role", "=", "admin").execute();
     if (admins.length !== 1) throw new Error(`expected the seed's single admin, found ${admins.length}`);
