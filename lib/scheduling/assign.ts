@@ -57,12 +57,15 @@ export function blockerFor(scenario: Scenario, demand: Demand, load: GuardLoad, 
     if (s.end <= start && start - s.end < rules.minRestHours * HOUR - 1000) return "rest";
     if (end <= s.start && s.start - end < rules.minRestHours * HOUR - 1000) return "rest";
   }
-  // Conservative 7-day check: every shift ending within 7 days before this one starts counts in full.
-  const from = start - 7 * 24 * HOUR;
-  const to = end + 7 * 24 * HOUR;
-  const before = load.shifts.filter((s) => s.end > from && s.start < start).reduce((sum, s) => sum + s.paidMs, 0);
-  const after = load.shifts.filter((s) => s.start >= end && s.start < to).reduce((sum, s) => sum + s.paidMs, 0);
-  if (Math.max(before, after) + paidMs > load.guard.maxHours * HOUR + 1000) return "weekly";
+  // Conservative 7-day check: every window of 7 x 24 h holding the new shift, with each shift it touches counted in full.
+  const week = 7 * 24 * HOUR;
+  const near = load.shifts.filter((s) => s.end > end - week && s.start < start + week);
+  const anchors = [start, end - week, ...near.map((s) => s.start), ...near.map((s) => s.end - week)].filter((a) => a > end - week - 1 && a <= start);
+  for (const from of anchors) {
+    const to = from + week;
+    const paid = near.reduce((sum, s) => sum + (s.end > from && s.start < to ? s.paidMs : 0), 0);
+    if (paid + paidMs > load.guard.maxHours * HOUR + 1000) return "weekly";
+  }
   return null;
 }
 

@@ -174,4 +174,13 @@ describe("engine on fixed cases", () => {
     expect(withWish.violations).toEqual([]);
     expect(withWish.roster.shifts.filter((sh) => sh.guard === "G001").some(isWeekendOrLate)).toBe(false);
   });
+
+  it("short-staffed week: gap-filling shifts between assigned days keep every 7-day window within 48 h", async () => {
+    // 12 posts x 12 h x 7 d = 1008 post-hours against 15 guards x 48 h = 720: at least 288 h must stay empty.
+    const s = generateScenario({ posts: 12, guards: 15 });
+    const result = await buildRoster(s);
+    expect(result.violations).toEqual([]);
+    expect(result.totals.unfilledPostHours).toBeGreaterThanOrEqual(1008 - 720);
+    expect(result.roster.unfilled.every((u) => u.reason.startsWith("no guard is free"))).toBe(true);
+  });
 });
