@@ -14,6 +14,11 @@ export function orient(a: Point, b: Point, c: Point): number {
   return -orient2d(a[0], a[1], b[0], b[1], c[0], c[1]);
 }
 
+/** orient on bare coordinates (same sign convention), for hot loops over typed arrays. */
+export function orientXY(ax: number, ay: number, bx: number, by: number, cx: number, cy: number): number {
+  return -orient2d(ax, ay, bx, by, cx, cy);
+}
+
 /** Sign of orient as -1, 0 or 1. */
 export function orientSign(a: Point, b: Point, c: Point): -1 | 0 | 1 {
   const o = orient(a, b, c);

@@ -7,7 +7,7 @@
 // Ties in y are broken by x (isAbove), every sign comes from exact predicates, and collinear
 // vertices stay corners of strictly positive triangles: n + 2h - 2 triangles in all.
 import type { Point, Room, Triangulation } from "./types";
-import { isAbove, orient } from "./predicates";
+import { isAbove, orient, orientXY } from "./predicates";
 import { SweepStatus, type StatusNode } from "./sweep-status";
 
 const enum Corner {
@@ -94,7 +94,11 @@ export function monotoneDiagonals(graph: RoomGraph): [number, number][] {
   const helper = new Int32Array(n).fill(-1);
   const diagonals: [number, number][] = [];
   // One comparison function for the whole sweep (no closure per corner): is this wall left of v?
-  const leftOf = (wall: number, v: number) => orient(points[wall], points[next[wall]], points[v]) > 0;
+  // Coordinates from flat typed arrays: the status search is memory-bound on big rooms.
+  const leftOf = (wall: number, v: number) => {
+    const w = next[wall];
+    return orientXY(xs[wall], ys[wall], xs[w], ys[w], xs[v], ys[v]) > 0;
+  };
   const wallLeftOf = (v: number): number => {
     const node = status.lastWhere(leftOf, v);
     if (node === null) throw new Error(`triangulate: no wall left of corner ${v}; is the room valid and normalised?`);
