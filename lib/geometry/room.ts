@@ -117,9 +117,7 @@ export function validateRoom(room: Room, options: ValidateOptions = {}): RoomPro
   const rawRings: Ring[] = [room.outline, ...room.obstacles];
 
   // Numbers first: nothing below is meaningful with NaN, infinities or far-away coordinates.
-  let total = 0;
   rawRings.forEach((ring, r) => {
-    total += ring.length;
     ring.forEach((p, i) => {
       if (!Array.isArray(p) || p.length < 2 || !Number.isFinite(p[0]) || !Number.isFinite(p[1])) {
         problems.push({
@@ -136,16 +134,18 @@ export function validateRoom(room: Room, options: ValidateOptions = {}): RoomPro
     });
   });
   if (problems.length > 0) return problems;
-  if (total > maxVertices) {
+  // The limit counts corners as planned: after repeated and closing points are dropped.
+  const rings = rawRings.map(cleanRing);
+  const corners = rings.reduce((sum, ring) => sum + ring.points.length, 0);
+  if (corners > maxVertices) {
     return [
       {
         code: "too-many-vertices",
-        message: `the room has ${total.toLocaleString("en")} vertices; the limit is ${maxVertices.toLocaleString("en")}`,
+        message: `the room has ${corners.toLocaleString("en")} vertices; the limit is ${maxVertices.toLocaleString("en")}`,
       },
     ];
   }
 
-  const rings = rawRings.map(cleanRing);
   rings.forEach((ring, r) => {
     const name = ringName(r);
     if (ring.points.length < 3) {

@@ -93,6 +93,8 @@ describe("validateRoom messages", () => {
     const problems = validateRoom({ outline: square, obstacles: [] }, { maxVertices: 3 });
     expect(problems[0]).toMatchObject({ code: "too-many-vertices", message: "the room has 4 vertices; the limit is 3" });
     expect(validateRoom({ outline: square, obstacles: [] }, { maxVertices: 4 })).toEqual([]);
+    // The limit counts corners, not the repeated closing point.
+    expect(validateRoom({ outline: [...square, square[0]], obstacles: [] }, { maxVertices: 4 })).toEqual([]);
   });
 
   it("rejects obstacles crossing the outline, each other, or too small to be rings", () => {
