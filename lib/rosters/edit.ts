@@ -72,7 +72,10 @@ export async function reassignInDraft(db: Kysely<Database>, request: ReassignReq
     const broken = after.filter((v) => !known.has(`${v.rule}|${v.message}`));
     if (broken.length > 0) {
       const violations = storedViolations(broken, names);
-      throw new RosterProblem(422, "breaks-rule", `Not changed: ${violations[0]!.message} (rule ${violations[0]!.rule}).`, { violations });
+      // Name every rule the edit would break (a person fixes them together), the first three in full.
+      const named = violations.slice(0, 3).map((v) => `${v.message} (rule ${v.rule})`);
+      const more = violations.length > 3 ? `; and ${violations.length - 3} more` : "";
+      throw new RosterProblem(422, "breaks-rule", `Not changed: ${named.join("; ")}${more}.`, { violations });
     }
 
     const stored = storedRoster(outcome.roster);
