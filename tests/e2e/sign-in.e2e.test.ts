@@ -124,6 +124,36 @@ describe("each demo role signs in and lands on its home", () => {
   });
 });
 
+describe("nothing leaves the machine", () => {
+  it("every request the pages make (fonts, scripts, styles, data) goes to the app itself", async () => {
+    const origin = new URL(process.env.E2E_BASE_URL!).origin;
+    const elsewhere: string[] = [];
+    for (const [role, paths] of [
+      ["operations", ["/", "/galleries", "/exhibitions", "/staffing", "/people"]],
+      ["guard", ["/", "/my-shifts"]],
+      ["admin", ["/users", "/mail", "/settings"]],
+    ] as const) {
+      const context = await newContext(browser);
+      const page = await context.newPage();
+      page.on("request", (request) => {
+        const url = request.url();
+        if (!url.startsWith(origin) && !url.startsWith("data:") && !url.startsWith("blob:")) elsewhere.push(url);
+      });
+      try {
+        await signInThroughForm(page, account(role).email, DEMO_PASSWORD);
+        await page.waitForURL((url) => url.pathname === "/");
+        for (const path of paths) {
+          await page.goto(path);
+          await page.waitForLoadState("networkidle");
+        }
+      } finally {
+        await context.close();
+      }
+    }
+    expect(elsewhere).toEqual([]);
+  });
+});
+
 describe("refusals", () => {
   it("a wrong password is refused with a clear message and no session", async () => {
     const context = await newContext(browser);
