@@ -65,9 +65,7 @@ export async function solveCover(scenario: Scenario, demand: Demand, options: { 
     const model = dayModel(scenario, demand, d.day, patterns[d.day], classes);
     let answer = cache.get(model.lp);
     if (!answer) {
-      const t = performance.now();
       answer = solveDay(highs, model, options.timeLimit ?? 20);
-      if (process.env.SW_DEBUG) console.error(`day ${d.day}: ${model.column.size} columns, ${answer.status}, ${Math.round(performance.now() - t)} ms`);
       cache.set(model.lp, answer);
     }
     statuses.add(answer.status);

@@ -33,7 +33,7 @@ export async function buildRoster(scenario: Scenario, options: { timeLimit?: num
   );
   for (const s of sorted) for (let k = 0; k < s.count; k++) instances.push({ day: s.day, pattern: s.pattern, skillClass: s.skillClass, guard: null });
   const loads = newLoads(scenario, Math.ceil(scenario.days / 7));
-  // Rarest skill classes first within a day, so the scarce guards go where only they can.
+  // Each day is one exact assignment over all its shifts, so their order inside the day does not bias it.
   const byDay = demand.days.map((d) => instances.filter((i) => i.day === d.day));
   for (const dayInstances of byDay) assignDay(scenario, demand, dayInstances, loads);
   const t2 = performance.now();
