@@ -84,6 +84,9 @@ export function planFewestOver(
   const started = performance.now();
   const deadline = started + 1000 * (options.timeLimit ?? 10);
   const secondsLeft = () => Math.max(0, (deadline - performance.now()) / 1000);
+  // The search for posts stops at 75% of the time limit so the lower bound always gets its turn.
+  const searchDeadline = started + 750 * (options.timeLimit ?? 10);
+  const searchSecondsLeft = () => Math.max(0, (searchDeadline - performance.now()) / 1000);
   const sightlines: Sightlines = createSightlines(room, triangulation);
   const problems = checkConstraints(room, sightlines, options);
   const range = options.sightRange && options.sightRange > 0 ? options.sightRange : undefined;
@@ -171,14 +174,15 @@ export function planFewestOver(
   let rounds = 0;
   let stoppedBy: FewestPlan["stoppedBy"] = "time-limit";
   const pinnedIndex = pinned.map((p) => candidateKeys.get(key(p))!).filter((i) => i !== undefined);
-  while (secondsLeft() > 0) {
+  function coverRounds() {
+  while (searchSecondsLeft() > 0) {
     rounds++;
     const answer = solveBinaryProgram({
       sense: "minimise",
       weights: candidates.map(() => 1),
       atLeast: seenBy.map((items) => ({ items, need: Math.min(demand, items.length) })),
       fixed: pinnedIndex,
-      seconds: secondsLeft(),
+      seconds: searchSecondsLeft(),
     });
     if (answer.status === "infeasible" || (answer.status === "stopped" && answer.chosen.length === 0)) break;
     const posts = answer.chosen.map((j) => candidates[j]);
@@ -204,21 +208,54 @@ export function planFewestOver(
     // No new witness (an unseen part too thin to hold a fresh point): more rounds would repeat this one.
     if (witnesses.length === before) break;
   }
+  }
 
-  // The lower bound over every witness used, plus each corner (its region is small: good packing).
-  const pinnedRegions = pinned.map((p) => {
-    const ring = sight(p);
-    return !ring ? [] : range ? clipToSightRange(ring, p, range, "circumscribed") : [[ring]];
-  });
-  const boundWitnesses: BoundWitness[] = witnesses.map((w) => {
-    const seenByPinned = pinnedRegions.filter((region) => region.some((polygon) => insideClosedRing(w.point, polygon[0]))).length;
-    return {
-      point: w.point,
-      region: range ? clipToSightRange(w.ring, w.point, range, "circumscribed") : [[w.ring]],
-      weight: Math.max(0, demand - seenByPinned),
-    };
-  });
-  const proof = independentWitnessBound(boundWitnesses, { scale, pinned: pinned.length, seconds: Math.max(0.2, Math.min(2, secondsLeft())) });
+  // Extra witnesses for the bound only, on the walls close to each corner (small regions pack well).
+  const packingPoints: { point: Point; ring: Ring }[] = [];
+  for (const ring of [room.outline, ...room.obstacles]) {
+    for (let i = 0; i < ring.length; i++) {
+      const a = ring[i], b = ring[(i + 1) % ring.length];
+      for (const t of [0.1, 0.9]) {
+        const p: Point = [a[0] + t * (b[0] - a[0]), a[1] + t * (b[1] - a[1])];
+        const seen = sight(p);
+        if (seen) packingPoints.push({ point: p, ring: seen });
+      }
+    }
+  }
+
+  function lowerBound() {
+    // The lower bound over every witness used plus the packing points.
+    const pinnedRegions = pinned.map((p) => {
+      const ring = sight(p);
+      return !ring ? [] : range ? clipToSightRange(ring, p, range, "circumscribed") : [[ring]];
+    });
+    const pool = [...witnesses, ...packingPoints];
+    const boundWitnesses: BoundWitness[] = pool.map((w) => {
+      const seenByPinned = pinnedRegions.filter((region) => region.some((polygon) => insideClosedRing(w.point, polygon[0]))).length;
+      return {
+        point: w.point,
+        region: range ? clipToSightRange(w.ring, w.point, range, "circumscribed") : [[w.ring]],
+        weight: Math.max(0, demand - seenByPinned),
+      };
+    });
+    return independentWitnessBound(boundWitnesses, { scale, pinned: pinned.length, seconds: Math.max(0.3, Math.min(3, secondsLeft() / 2)) });
+  }
+
+  coverRounds();
+  let proof = lowerBound();
+  // Anytime improvement while the bound and the plan disagree: more candidate posts, at the far
+  // ends of the witnesses' shadow edges (where the faces of their visibility arrangement meet the
+  // walls), then at the middle of every region edge; each time the witnesses grow as needed.
+  for (let step = 1; step <= 2 && best && proof.bound < best.posts.length && searchSecondsLeft() > 0.1; step++) {
+    for (const w of [...witnesses]) {
+      for (let i = 0; i < w.ring.length; i++) {
+        const a = w.ring[i], b = w.ring[(i + 1) % w.ring.length];
+        addCandidate(step === 1 ? a : [(a[0] + b[0]) / 2, (a[1] + b[1]) / 2]);
+      }
+    }
+    coverRounds();
+    proof = lowerBound();
+  }
 
   const chosen = best ?? lastTry;
   const certificate = chosen?.certificate ?? certifyCoverage(room, [], demand);

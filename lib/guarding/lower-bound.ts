@@ -35,6 +35,12 @@ interface Shape {
   maxY: number;
 }
 
+function ringArea(ring: Ring): number {
+  let twice = 0;
+  for (let i = 0, j = ring.length - 1; i < ring.length; j = i++) twice += ring[j][0] * ring[i][1] - ring[i][0] * ring[j][1];
+  return twice / 2;
+}
+
 function shapeOf(region: Region): Shape {
   const rings = region.map((polygon) => polygon[0]);
   let minX = Infinity, minY = Infinity, maxX = -Infinity, maxY = -Infinity;
@@ -115,27 +121,47 @@ export function independentWitnessBound(
   witnesses: BoundWitness[],
   options: { scale: number; pinned: number; seconds: number },
 ): LowerBound {
-  const useful = witnesses.filter((w) => w.weight > 0 && w.region.length > 0);
-  const shapes = useful.map((w) => shapeOf(w.region));
+  // Smallest regions first: they pack best, and if time runs short the pool is cut after them.
+  const sized = witnesses
+    .filter((w) => w.weight > 0 && w.region.length > 0)
+    .map((w) => ({ w, area: w.region.reduce((sum, polygon) => sum + Math.abs(ringArea(polygon[0])), 0) }))
+    .sort((a, b) => a.area - b.area);
   const margin = APART_MARGIN * options.scale;
+  const stopAt = performance.now() + 500 * options.seconds;
+  const useful: BoundWitness[] = [];
+  const shapes: Shape[] = [];
   const conflicts: number[][] = [];
-  for (let i = 0; i < useful.length; i++) {
-    for (let j = i + 1; j < useful.length; j++) {
-      if (regionsMeet(shapes[i], shapes[j], margin)) conflicts.push([i, j]);
-    }
+  for (const { w } of sized) {
+    if (performance.now() > stopAt) break;
+    const shape = shapeOf(w.region);
+    const i = useful.length;
+    for (let j = 0; j < i; j++) if (regionsMeet(shapes[j], shape, margin)) conflicts.push([j, i]);
+    useful.push(w);
+    shapes.push(shape);
   }
   const answer = solveBinaryProgram({
     sense: "maximise",
     weights: useful.map((w) => w.weight),
     atMostOne: conflicts,
-    seconds: options.seconds,
+    seconds: Math.max(0.1, (stopAt - performance.now()) / 1000 + options.seconds / 2),
   });
   // Independence is re-checked, so even an unfinished solver answer stays a proof.
   const clash = new Set(conflicts.map(([a, b]) => a * useful.length + b));
-  const chosen: number[] = [];
-  for (const i of answer.chosen) {
-    if (chosen.every((j) => !clash.has(Math.min(i, j) * useful.length + Math.max(i, j)))) chosen.push(i);
+  const apart = (i: number, j: number) => !clash.has(Math.min(i, j) * useful.length + Math.max(i, j));
+  const solverChoice: number[] = [];
+  for (const i of answer.chosen) if (solverChoice.every((j) => apart(i, j))) solverChoice.push(i);
+  // A greedy packing (fewest conflicts first) stands in when the solver found nothing in time.
+  const degree = new Array(useful.length).fill(0);
+  for (const [a, b] of conflicts) {
+    degree[a]++;
+    degree[b]++;
   }
+  const greedy: number[] = [];
+  for (const i of useful.map((_, k) => k).sort((a, b) => degree[a] / useful[a].weight - degree[b] / useful[b].weight)) {
+    if (greedy.every((j) => apart(i, j))) greedy.push(i);
+  }
+  const weightOf = (set: number[]) => set.reduce((sum, i) => sum + useful[i].weight, 0);
+  const chosen = weightOf(solverChoice) >= weightOf(greedy) ? solverChoice : greedy;
   const bound = options.pinned + chosen.reduce((sum, i) => sum + useful[i].weight, 0);
   return { bound, witnesses: chosen.map((i) => useful[i].point) };
 }
