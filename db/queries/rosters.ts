@@ -109,32 +109,45 @@ export interface DraftContent {
   createdBy: number | null;
 }
 
-/** Replaces the week's draft (if any) with a new one; call inside a transaction. */
+/**
+ * Replaces the content of the week's draft (or creates it); call inside a transaction. The draft
+ * keeps its id and its revision goes up, so a page still holding the old draft gets a 409 when it
+ * tries to edit or publish it.
+ */
 export async function replaceDraft(trx: Transaction<Database>, content: DraftContent): Promise<Roster> {
-  const previous = await trx
-    .deleteFrom("rosters")
+  const values = {
+    days: content.days,
+    scenario: toJson(content.scenario),
+    unfilled: toJson(content.unfilled),
+    totals: toJson(content.totals),
+    violations: toJson(content.violations),
+    created_by: content.createdBy,
+    created_at: sql<Date>`now()`,
+  };
+  const existing = await trx
+    .selectFrom("rosters")
+    .select("id")
     .where("site_id", "=", content.siteId)
     .where("starts_on", "=", content.startsOn)
     .where("status", "=", "draft")
-    .returning("revision")
+    .forUpdate()
     .executeTakeFirst();
-  const roster = await trx
-    .insertInto("rosters")
-    .values({
-      site_id: content.siteId,
-      starts_on: content.startsOn,
-      days: content.days,
-      status: "draft",
-      // A rebuilt draft continues the revision count, so a page holding the old draft cannot publish the new one.
-      revision: (previous?.revision ?? 0) + 1,
-      scenario: toJson(content.scenario),
-      unfilled: toJson(content.unfilled),
-      totals: toJson(content.totals),
-      violations: toJson(content.violations),
-      created_by: content.createdBy,
-    })
-    .returningAll()
-    .executeTakeFirstOrThrow();
+  let roster: Roster;
+  if (existing) {
+    await trx.deleteFrom("shifts").where("roster_id", "=", existing.id).execute();
+    roster = await trx
+      .updateTable("rosters")
+      .set({ ...values, revision: sql<number>`revision + 1` })
+      .where("id", "=", existing.id)
+      .returningAll()
+      .executeTakeFirstOrThrow();
+  } else {
+    roster = await trx
+      .insertInto("rosters")
+      .values({ ...values, site_id: content.siteId, starts_on: content.startsOn, status: "draft" })
+      .returningAll()
+      .executeTakeFirstOrThrow();
+  }
   await insertShifts(trx, roster.id, content.shifts);
   return roster;
 }

@@ -203,6 +203,16 @@ describe("building, publishing and mailing a week", () => {
     expect(mail).toMatchObject({ kind: ROSTER_MAIL_JOB, status: "done" });
   });
 
+  it("rebuilds the week into the same draft with a new revision, so a page holding the old one gets 409", async () => {
+    const before = await db.selectFrom("rosters").select(["id", "revision"]).where("id", "=", draftId).executeTakeFirstOrThrow();
+    await enqueueJob(db, { kind: ROSTER_BUILD_JOB, payload: { siteId, startsOn: WEEK, userId: null } });
+    const job = await runNextJob(db, rosterJobHandlers);
+    expect(job).toMatchObject({ status: "done", result: { rosterId: draftId, revision: before.revision + 1 } });
+    await expectRefusal(publishDraft(db, { rosterId: draftId, revision: before.revision, userId: null }), 409, "roster-changed");
+    const versions = await db.selectFrom("rosters").select("version").where("starts_on", "=", WEEK).where("status", "=", "published").orderBy("version").execute();
+    expect(versions.map((v) => v.version)).toEqual([1, 2]);
+  });
+
   it("serves a guard's feed with their shifts of the latest version only", async () => {
     const latest = await db.selectFrom("rosters").select("id").where("starts_on", "=", WEEK).where("status", "=", "published").where("version", "=", 2).executeTakeFirstOrThrow();
     const shifts = await shiftsOf(latest.id);
