@@ -138,6 +138,22 @@ describe("triangulate random rooms (fast-check property)", () => {
     );
   });
 
+  it("any valid room drawn on a 7 x 7 grid, with or without obstacles (the most degenerate input)", () => {
+    const gridPoint = fc.tuple(fc.integer({ min: 0, max: 6 }), fc.integer({ min: 0, max: 6 })) as fc.Arbitrary<P>;
+    let valid = 0;
+    fc.assert(
+      fc.property(fc.array(gridPoint, { minLength: 3, maxLength: 14 }), fc.array(fc.array(gridPoint, { minLength: 3, maxLength: 4 }), { maxLength: 2 }), (outline, obstacles) => {
+        const input = { outline: outline.map(([x, y]) => [2 * x, 2 * y] as P), obstacles: obstacles.map((o) => o.map(([x, y]) => [x + 3, y + 3] as P)) };
+        const result = prepareRoom(input);
+        if (!result.ok) return;
+        valid++;
+        expect(faultsOf(result.room)).toEqual([]);
+      }),
+      { numRuns: 20000, seed: 12 },
+    );
+    expect(valid).toBeGreaterThan(500); // enough valid rooms to mean something
+  });
+
   it("orthogonal rooms with square pillars on the grid (obstacles with equal coordinates everywhere)", () => {
     fc.assert(
       fc.property(fc.array(fc.tuple(fc.integer({ min: 0, max: 9 }), fc.integer({ min: 0, max: 9 })), { maxLength: 20 }), (cells) => {

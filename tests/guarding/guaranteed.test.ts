@@ -119,6 +119,18 @@ describe("guaranteed plans on random rooms (fast-check property)", () => {
     );
   });
 
+  it("any valid room drawn on a 7 x 7 grid, obstacles included: within the bound, every triangle watched", () => {
+    const gridPoint = fc.tuple(fc.integer({ min: 0, max: 6 }), fc.integer({ min: 0, max: 6 })) as fc.Arbitrary<P>;
+    fc.assert(
+      fc.property(fc.array(gridPoint, { minLength: 3, maxLength: 14 }), fc.array(fc.array(gridPoint, { minLength: 3, maxLength: 4 }), { maxLength: 3 }), (outline, obstacles) => {
+        const result = prepareRoom({ outline: outline.map(([x, y]) => [2 * x, 2 * y] as P), obstacles: obstacles.map((o) => o.map(([x, y]) => [x + 3, y + 3] as P)) });
+        if (!result.ok) return;
+        checkPlan(result.room, planGuaranteed(result.room), 20);
+      }),
+      { numRuns: 10000, seed: 13 },
+    );
+  });
+
   it("rooms with obstacles: at most floor((n + 2h)/3) (O'Rourke 1987, ch. 5, as recalled)", () => {
     fc.assert(
       fc.property(
