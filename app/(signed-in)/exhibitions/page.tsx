@@ -1,4 +1,6 @@
 import type { Metadata } from "next";
+import Link from "next/link";
+import { postPlansForExhibition } from "@/db/queries/post-plans";
 import { requirePageUser } from "@/lib/auth/session";
 import { calendarDate } from "@/components/when";
 import { exhibitionsWithRooms, mainSite, siteDay } from "../_queries/site";
@@ -9,6 +11,8 @@ export default async function ExhibitionsPage() {
   await requirePageUser("exhibitions:view");
   const site = await mainSite();
   const exhibitions = site ? await exhibitionsWithRooms(site.id) : [];
+  // Each exhibition's post plans, newest first per room: the first approved one is what staffing counts.
+  const plans = new Map(await Promise.all(exhibitions.map(async (e) => [e.id, await postPlansForExhibition(e.id)] as const)));
   const today = site ? siteDay(site).date : "";
   return (
     <div className="space-y-6">
@@ -35,6 +39,7 @@ export default async function ExhibitionsPage() {
                     <th scope="col">Risk</th>
                     <th scope="col">Sight range</th>
                     <th scope="col">Double cover</th>
+                    <th scope="col">Post plan</th>
                   </tr>
                 </thead>
                 <tbody>
@@ -47,11 +52,14 @@ export default async function ExhibitionsPage() {
                       </td>
                       <td>{room.sight_range == null ? "unlimited" : `${room.sight_range} m`}</td>
                       <td>{room.double_cover ? "yes" : "no"}</td>
+                      <td>
+                        <PlanCell roomId={room.id} plans={(plans.get(exhibition.id) ?? []).filter((p) => p.room_id === room.id)} />
+                      </td>
                     </tr>
                   ))}
                   {exhibition.rooms.length === 0 && (
                     <tr>
-                      <td colSpan={5}>No rooms assigned yet.</td>
+                      <td colSpan={6}>No rooms assigned yet.</td>
                     </tr>
                   )}
                 </tbody>
@@ -61,5 +69,18 @@ export default async function ExhibitionsPage() {
         );
       })}
     </div>
+  );
+}
+
+/** The approved plan staffing counts (posts, whether the walls changed since) and any newer proposal. */
+function PlanCell({ roomId, plans }: { roomId: number; plans: Awaited<ReturnType<typeof postPlansForExhibition>> }) {
+  const approved = plans.find((p) => p.status === "approved");
+  const proposed = plans.filter((p) => p.status === "proposed" && (!approved || p.created_at > approved.created_at)).length;
+  return (
+    <Link href={`/galleries/${roomId}`}>
+      {approved ? `${approved.posts.length} posts, approved` : "none approved"}
+      {approved && approved.room_version !== approved.current_room_version ? " (walls changed since)" : ""}
+      {proposed > 0 ? `; ${proposed} proposed` : ""}
+    </Link>
   );
 }

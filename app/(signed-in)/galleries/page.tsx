@@ -1,4 +1,5 @@
 import type { Metadata } from "next";
+import Link from "next/link";
 import { requirePageUser } from "@/lib/auth/session";
 import { RoomOutline } from "@/components/room-outline";
 import { floorsWithRooms, mainSite } from "../_queries/site";
@@ -28,7 +29,9 @@ export default async function GalleriesPage() {
               <li key={room.id} className="card flex items-center gap-4">
                 <RoomOutline outline={room.outline} obstacles={room.obstacles} label={`Outline of ${room.name}`} />
                 <div>
-                  <h3>{room.name}</h3>
+                  <h3>
+                    <Link href={`/galleries/${room.id}`}>{room.name}</Link>
+                  </h3>
                   <dl className="mt-1 grid grid-cols-[auto_auto] gap-x-3 text-sm">
                     <dt className="text-stone-700">Vertices</dt>
                     <dd className="font-semibold">{room.outline.length + room.obstacles.reduce((n, ring) => n + ring.length, 0)}</dd>

@@ -1,0 +1,70 @@
+"use client";
+// The numbers beside the drawing: n, h, the guaranteed bound and count, the fewest count with its
+// lower bound, and whether the fewest plan is proven minimal.
+import type { PlanAnswer } from "@/components/plan/plan-messages";
+import type { FewestPreview } from "@/components/plan/plan-input";
+
+interface Props {
+  answer: PlanAnswer | null;
+  fewest: FewestPreview | null;
+  fewestState: "idle" | "computing" | "unavailable" | "failed";
+  fewestMessage: string | null;
+  colourName: string | null;
+}
+
+function percent(share: number): string {
+  return share >= 1 ? "100%" : `${(Math.floor(share * 1000) / 10).toFixed(1)}%`;
+}
+
+export function PlanFigures({ answer, fewest, fewestState, fewestMessage, colourName }: Props) {
+  const ok = answer?.ok ? answer : null;
+  const proven = fewest?.proven === true;
+  // The worker certifies the fewest plan's posts once known, else the guaranteed posts.
+  const covered = ok ? ok.sight.covered : null;
+  return (
+    <section className="card space-y-3" aria-labelledby="figures-heading" data-testid="plan-figures">
+      <div className="flex items-center justify-between gap-2">
+        <h2 id="figures-heading" className="text-lg">
+          Posts
+        </h2>
+        {proven && (
+          <span className="rounded-full bg-ok-50 px-2 py-0.5 text-xs font-semibold text-ok-700" data-testid="proven-minimal">
+            proven minimal
+          </span>
+        )}
+      </div>
+      <dl className="grid grid-cols-[1fr_auto] gap-x-3 gap-y-1 text-sm">
+        <dt>Vertices (n)</dt>
+        <dd className="text-right font-semibold">{ok?.vertices ?? "–"}</dd>
+        <dt>Obstacles (h)</dt>
+        <dd className="text-right font-semibold">{ok?.obstacles ?? "–"}</dd>
+        <dt>Floor area</dt>
+        <dd className="text-right">{ok ? `${ok.area.toFixed(1)} m²` : "–"}</dd>
+        <dt title="floor((n + 2h) / 3): no room of this size needs more">Bound ⌊(n+2h)/3⌋</dt>
+        <dd className="text-right font-semibold">{ok?.bound ?? "–"}</dd>
+        <dt>Guaranteed plan</dt>
+        <dd className="text-right font-semibold" data-testid="guaranteed-count">
+          {ok ? ok.guaranteed.posts.length : "–"}
+        </dd>
+        <dt>Fewest plan</dt>
+        <dd className="text-right font-semibold" data-testid="fewest-count">
+          {fewest ? fewest.posts.length : fewestState === "computing" ? "computing…" : "–"}
+        </dd>
+        <dt title="No plan under these conditions has fewer posts">Lower bound</dt>
+        <dd className="text-right">{fewest?.lowerBound ?? "–"}</dd>
+        <dt>Floor seen by the {fewest ? "fewest" : "guaranteed"} plan</dt>
+        <dd data-testid="covered" className={`text-right ${covered !== null && covered < 1 ? "font-semibold text-alert-700" : ""}`}>
+          {covered === null ? "–" : percent(covered)}
+        </dd>
+      </dl>
+      {ok && colourName && (
+        <p className="text-xs text-stone-700">
+          Guaranteed posts stand on the {colourName} corners of the triangulation: every triangle has one corner of each colour, so the smallest colour class sees the whole floor (Fisk, 1978).
+        </p>
+      )}
+      {fewestState === "computing" && <p className="text-sm text-stone-700" aria-live="polite">Fewest plan: computing…</p>}
+      {fewestState === "unavailable" && <p className="text-sm text-stone-700">The fewest plan preview is not available on this server yet.</p>}
+      {fewestState === "failed" && <p className="text-sm text-alert-700">The fewest plan could not be computed: {fewestMessage}</p>}
+    </section>
+  );
+}

@@ -1,0 +1,390 @@
+"use client";
+// The room page's working area: the drawing with the live guaranteed plan (Web Worker) and the
+// fewest plan (server preview), the figures and staffing cost, the curator's editing tools and
+// save, and for operations the post-plan conditions, proposals and approval.
+import { useQuery, useQueryClient } from "@tanstack/react-query";
+import { useRouter } from "next/navigation";
+import { useEffect, useMemo, useState } from "react";
+import { ApiRequestError, apiFetch } from "@/lib/api/client";
+import type { RoomProblem } from "@/lib/geometry/room";
+import type { Point, Ring, Room } from "@/lib/geometry/types";
+import { importRoomFile } from "@/lib/geometry/room-import";
+import type { RoomDetail, RoomExhibition } from "@/db/queries/rooms";
+import type { PostPlanView } from "@/db/queries/post-plans";
+import { RoomDrawing, COLOUR_NAMES, type DrawingMode } from "@/components/plan/room-drawing";
+import { usePlanWorker } from "@/components/plan/use-plan-worker";
+import { addRectangleObstacle, deleteVertex, moveVertex, rectangle, removeObstacle, ringOf, type VertexRef } from "@/components/plan/room-edits";
+import type { FewestPreview, RoomWalls } from "@/components/plan/plan-input";
+import { PlanFigures } from "./plan-figures";
+import { StaffingPanel } from "./staffing-panel";
+import { PostPlansPanel } from "./post-plans-panel";
+
+export interface RoomData {
+  room: RoomDetail;
+  plans: PostPlanView[];
+}
+
+interface Props {
+  initial: RoomData;
+  canEdit: boolean;
+  canApprove: boolean;
+  /** The exhibition the page plans for (running today, else the next), if the room is in one. */
+  exhibitionId: number | null;
+}
+
+/** How long the room must stay still before the fewest plan is asked for. */
+const PREVIEW_DELAY_MS = 700;
+/** Solver seconds the preview may spend while the curator waits. */
+const PREVIEW_SECONDS = 2;
+
+export function RoomWorkspace({ initial, canEdit, canApprove, exhibitionId }: Props) {
+  const queryClient = useQueryClient();
+  const router = useRouter();
+  const queryKey = ["room", initial.room.id];
+  const { data } = useQuery({
+    queryKey,
+    queryFn: () => apiFetch<RoomData>(`/api/rooms/${initial.room.id}`),
+    initialData: initial,
+  });
+  const detail = data.room;
+
+  // The walls being edited; null = showing the saved room.
+  const [draft, setDraft] = useState<Room | null>(null);
+  const [baseVersion, setBaseVersion] = useState(detail.version);
+  const room: Room = draft ?? { outline: detail.outline, obstacles: detail.obstacles };
+  const [mode, setMode] = useState<DrawingMode>("view");
+  const [selectedVertex, setSelectedVertex] = useState<VertexRef | null>(null);
+  const [selectedObstacle, setSelectedObstacle] = useState<number | null>(null);
+  const [notice, setNotice] = useState<{ kind: "ok" | "error"; text: string } | null>(null);
+  const [serverProblems, setServerProblems] = useState<RoomProblem[]>([]);
+  const [importProblems, setImportProblems] = useState<string[]>([]);
+  const [saving, setSaving] = useState(false);
+  const [show, setShow] = useState({ triangles: true, guaranteed: true, sight: true });
+
+  // Post-plan conditions (operations).
+  const exhibition: RoomExhibition | null = detail.exhibitions.find((e) => e.id === exhibitionId) ?? null;
+  const [sightRange, setSightRange] = useState<number | null>(exhibition?.sight_range ?? null);
+  const [doubleCover, setDoubleCover] = useState<boolean>(exhibition?.double_cover ?? false);
+  const [pinned, setPinned] = useState<Point[]>([]);
+  const [forbidden, setForbidden] = useState<Ring[]>([]);
+
+  // The fewest plan from the server, remembered with the room and conditions it was computed for.
+  const previewKey = JSON.stringify({ room, sightRange, doubleCover, pinned, forbidden });
+  const [fewest, setFewest] = useState<{ key: string; plan: FewestPreview } | null>(null);
+  const [fewestState, setFewestState] = useState<"idle" | "computing" | "unavailable" | "failed">("idle");
+  const [fewestMessage, setFewestMessage] = useState<string | null>(null);
+  const fewestCurrent = fewest && fewest.key === previewKey ? fewest.plan : null;
+
+  const { answer, working, failure } = usePlanWorker({
+    room,
+    sightRange,
+    doubleCover,
+    shownPosts: fewestCurrent ? fewestCurrent.posts : null,
+  });
+  const liveProblems = answer && !answer.ok ? answer.problems : [];
+  const valid = answer?.ok === true;
+
+  useEffect(() => {
+    if (!answer || !answer.ok) return;
+    const controller = new AbortController();
+    const timer = setTimeout(async () => {
+      setFewestState("computing");
+      try {
+        // The preview takes a GeoJSON Polygon (ring 0 the outline, then obstacles) and answers the
+        // `posts` command's room JSON (INTERFACES.md) with its `fewest` field.
+        const response = await apiFetch<{ room?: { fewest?: FewestPreview } }>("/api/post-plans/preview", {
+          body: {
+            room: { type: "Polygon", coordinates: [room.outline, ...room.obstacles] },
+            ...(sightRange ? { sightRange } : {}),
+            pinned,
+            forbidden,
+            doubleCover,
+            timeLimit: PREVIEW_SECONDS,
+          },
+          signal: controller.signal,
+        });
+        const plan = response.room?.fewest;
+        if (!plan || !Array.isArray(plan.posts)) throw new Error("the preview answered without a fewest plan");
+        setFewest({ key: previewKey, plan });
+        setFewestState("idle");
+        setFewestMessage(null);
+      } catch (error) {
+        if (controller.signal.aborted) return;
+        if (error instanceof ApiRequestError && (error.status === 404 || error.status === 405)) setFewestState("unavailable");
+        else {
+          setFewestState("failed");
+          setFewestMessage(error instanceof Error ? error.message : String(error));
+        }
+      }
+    }, PREVIEW_DELAY_MS);
+    return () => {
+      clearTimeout(timer);
+      controller.abort();
+    };
+    // The preview depends on the room and conditions only (previewKey says both).
+    // eslint-disable-next-line react-hooks/exhaustive-deps
+  }, [previewKey, valid]);
+
+  function change(next: Room, commit = true) {
+    setDraft(next);
+    setNotice(null);
+    setServerProblems([]);
+    if (commit) setImportProblems([]);
+  }
+
+  function deleteSelected() {
+    if (selectedVertex) {
+      const next = deleteVertex(room, selectedVertex);
+      if (typeof next === "string") setNotice({ kind: "error", text: `Cannot delete that vertex: ${next}.` });
+      else {
+        change(next);
+        setSelectedVertex(null);
+      }
+    } else if (selectedObstacle) {
+      change(removeObstacle(room, selectedObstacle));
+      setSelectedObstacle(null);
+    }
+  }
+
+  useEffect(() => {
+    if (mode !== "edit") return;
+    const onKey = (event: KeyboardEvent) => {
+      const target = event.target as HTMLElement | null;
+      if (target && ["INPUT", "TEXTAREA", "SELECT"].includes(target.tagName)) return;
+      if ((event.key === "Delete" || event.key === "Backspace") && (selectedVertex || selectedObstacle)) {
+        event.preventDefault();
+        deleteSelected();
+      }
+      const step = event.shiftKey ? 1 : 0.1;
+      const moves: Record<string, Point> = { ArrowLeft: [-step, 0], ArrowRight: [step, 0], ArrowUp: [0, step], ArrowDown: [0, -step] };
+      if (selectedVertex && moves[event.key]) {
+        event.preventDefault();
+        const p = ringOf(room, selectedVertex.ring)[selectedVertex.index];
+        change(moveVertex(room, selectedVertex, [p[0] + moves[event.key][0], p[1] + moves[event.key][1]]));
+      }
+    };
+    window.addEventListener("keydown", onKey);
+    return () => window.removeEventListener("keydown", onKey);
+  });
+
+  async function save() {
+    setSaving(true);
+    setNotice(null);
+    setServerProblems([]);
+    try {
+      const body: RoomWalls = { outline: room.outline, obstacles: room.obstacles, version: baseVersion };
+      const saved = await apiFetch<{ room: RoomDetail }>(`/api/rooms/${detail.id}`, { method: "PUT", body });
+      queryClient.setQueryData<RoomData>(queryKey, (old) => (old ? { ...old, room: saved.room } : old));
+      setBaseVersion(saved.room.version);
+      setDraft(null);
+      setNotice({ kind: "ok", text: `Saved: the room is now at version ${saved.room.version}.` });
+      // The page heading (server-rendered) shows the version too.
+      router.refresh();
+    } catch (error) {
+      if (error instanceof ApiRequestError) {
+        if (error.status === 422 && Array.isArray(error.details.problems)) setServerProblems(error.details.problems as RoomProblem[]);
+        setNotice({ kind: "error", text: error.message });
+      } else setNotice({ kind: "error", text: "The room could not be saved: the server did not answer. Try again." });
+    } finally {
+      setSaving(false);
+    }
+  }
+
+  async function reload() {
+    const fresh = await queryClient.fetchQuery({ queryKey, queryFn: () => apiFetch<RoomData>(`/api/rooms/${detail.id}`), staleTime: 0 });
+    setBaseVersion(fresh.room.version);
+    setDraft(null);
+    setNotice(null);
+    setServerProblems([]);
+  }
+
+  async function upload(file: File) {
+    const text = await file.text();
+    const result = importRoomFile(file.name, text);
+    if (!result.ok) {
+      setImportProblems(result.problems.map((p) => p.message));
+      return;
+    }
+    change(result.room);
+    setMode("edit");
+    setNotice({ kind: "ok", text: `Read ${file.name} (${result.format.toUpperCase()}): ${result.room.outline.length} outline corners, ${result.room.obstacles.length} obstacles. Check the drawing, then save.` });
+  }
+
+  const problems = [...liveProblems, ...serverProblems];
+  const dirty = draft !== null;
+  const stale = detail.version !== baseVersion;
+
+  const modes = useMemo(() => {
+    const list: { mode: DrawingMode; label: string; hint: string }[] = [{ mode: "view", label: "View", hint: "Look at the plan." }];
+    if (canEdit) {
+      list.push({ mode: "edit", label: "Edit walls", hint: "Drag a corner to move it; double-click a wall to add a corner; select a corner or obstacle and press Delete (or the button) to remove it; arrow keys nudge the selected corner by 10 cm." });
+      list.push({ mode: "obstacle", label: "Add obstacle", hint: "Drag a rectangle on the floor: a plinth, vitrine or partition." });
+    }
+    if (canApprove) {
+      list.push({ mode: "pin", label: "Pin posts", hint: "Click the floor to pin a post where a guard must stand; click a pin to remove it." });
+      list.push({ mode: "forbid", label: "Forbid zone", hint: "Drag a rectangle where no post may stand: keep exits and evacuation routes clear. Click a zone to remove it." });
+    }
+    return list;
+  }, [canEdit, canApprove]);
+
+  return (
+    <div className="grid gap-6 lg:grid-cols-[minmax(0,1fr)_20rem]">
+      <div className="space-y-3">
+        <div className="flex flex-wrap items-center gap-2" role="toolbar" aria-label="Drawing tools">
+          {modes.map((m) => (
+            <button
+              key={m.mode}
+              type="button"
+              className={mode === m.mode ? "button" : "button-quiet"}
+              aria-pressed={mode === m.mode}
+              onClick={() => setMode(m.mode)}
+            >
+              {m.label}
+            </button>
+          ))}
+          {canEdit && mode === "edit" && (
+            <button type="button" className="button-quiet" disabled={!selectedVertex && !selectedObstacle} onClick={deleteSelected}>
+              {selectedObstacle ? "Remove obstacle" : "Delete vertex"}
+            </button>
+          )}
+        </div>
+        <p className="text-sm text-stone-700">{modes.find((m) => m.mode === mode)?.hint}</p>
+
+        <RoomDrawing
+          room={room}
+          mode={mode}
+          triangles={answer?.ok ? answer.triangles : undefined}
+          guaranteed={answer?.ok ? answer.guaranteed : null}
+          // Sight shading and unseen parts: of the fewest plan once known, else of the guaranteed posts.
+          sight={answer?.ok ? { ...answer.sight, posts: fewestCurrent ? answer.sight.posts : [] } : null}
+          problems={problems}
+          pinned={pinned}
+          forbidden={forbidden}
+          selectedVertex={selectedVertex}
+          selectedObstacle={selectedObstacle}
+          show={show}
+          onRoomChange={(next, commit) => change(next, commit)}
+          onSelectVertex={setSelectedVertex}
+          onSelectObstacle={setSelectedObstacle}
+          onRectangle={(a, b) => {
+            if (mode === "obstacle") {
+              const next = addRectangleObstacle(room, a, b);
+              if (typeof next === "string") setNotice({ kind: "error", text: `No obstacle added: ${next}.` });
+              else change(next);
+            } else if (mode === "forbid") {
+              const zone = rectangle(a, b);
+              if (Math.abs(zone[2][0] - zone[0][0]) >= 0.05 && Math.abs(zone[2][1] - zone[0][1]) >= 0.05) setForbidden([...forbidden, zone]);
+            }
+          }}
+          onPin={(p) => setPinned([...pinned, [Math.round(p[0] * 100) / 100, Math.round(p[1] * 100) / 100]])}
+          onUnpin={(i) => setPinned(pinned.filter((_, k) => k !== i))}
+          onRemoveForbidden={(i) => setForbidden(forbidden.filter((_, k) => k !== i))}
+        />
+
+        <fieldset className="flex flex-wrap gap-4 text-sm">
+          <legend className="sr-only">Layers</legend>
+          {(
+            [
+              ["triangles", "Triangulation and colours"],
+              ["guaranteed", "Guaranteed posts (squares)"],
+              ["sight", "Sight and unseen floor"],
+            ] as const
+          ).map(([key, label]) => (
+            <label key={key} className="inline-flex items-center gap-2">
+              <input type="checkbox" checked={show[key]} onChange={(e) => setShow({ ...show, [key]: e.target.checked })} />
+              {label}
+            </label>
+          ))}
+        </fieldset>
+
+        <div aria-live="polite" className="space-y-2">
+          {working && <p className="text-sm text-stone-700">Re-planning in the browser…</p>}
+          {failure && <p className="rounded-md bg-alert-50 p-3 text-sm text-alert-700">The live plan failed: {failure}</p>}
+          {problems.length > 0 && (
+            <div className="rounded-md border border-alert-200 bg-alert-50 p-3 text-sm text-alert-700" data-testid="room-problems">
+              <p className="font-semibold">This room cannot be planned yet:</p>
+              <ul className="list-disc pl-5">
+                {problems.map((p, i) => (
+                  <li key={i}>{p.message}</li>
+                ))}
+              </ul>
+            </div>
+          )}
+          {importProblems.length > 0 && (
+            <div className="rounded-md border border-alert-200 bg-alert-50 p-3 text-sm text-alert-700" data-testid="import-problems">
+              <p className="font-semibold">The file could not be read:</p>
+              <ul className="list-disc pl-5">
+                {importProblems.map((p, i) => (
+                  <li key={i}>{p}</li>
+                ))}
+              </ul>
+            </div>
+          )}
+          {notice && (
+            <p role={notice.kind === "error" ? "alert" : "status"} className={notice.kind === "error" ? "rounded-md bg-alert-50 p-3 text-sm text-alert-700" : "rounded-md bg-ok-50 p-3 text-sm text-ok-700"}>
+              {notice.text}
+            </p>
+          )}
+        </div>
+
+        {canEdit && (
+          <div className="card flex flex-wrap items-end gap-3">
+            <button type="button" className="button" disabled={!dirty || saving || problems.length > 0} onClick={save}>
+              {saving ? "Saving…" : "Save room"}
+            </button>
+            <button type="button" className="button-quiet" disabled={!dirty && !stale} onClick={reload}>
+              {dirty ? "Discard changes" : "Reload"}
+            </button>
+            <label className="text-sm">
+              <span className="field-label">Upload a room file</span>
+              <input
+                type="file"
+                accept=".geojson,.json,.svg,.csv,.txt"
+                className="mt-1 block text-sm"
+                onChange={(e) => {
+                  const file = e.target.files?.[0];
+                  if (file) void upload(file);
+                  e.target.value = "";
+                }}
+              />
+              <span className="mt-1 block text-xs text-stone-700">GeoJSON Polygon, SVG &lt;polygon&gt;/&lt;path&gt; (straight lines), or CSV rows ring,x,y or x,y — in metres.</span>
+            </label>
+            <p className="text-sm text-stone-700">
+              Version {baseVersion}
+              {dirty ? " · unsaved changes" : ""}
+            </p>
+          </div>
+        )}
+      </div>
+
+      <aside className="space-y-4" aria-label="Plan figures">
+        <PlanFigures answer={answer} fewest={fewestCurrent} fewestState={fewestState} fewestMessage={fewestMessage} colourName={answer?.ok ? COLOUR_NAMES[answer.guaranteed.colour] : null} />
+        <StaffingPanel site={detail.site} guaranteedPosts={answer?.ok ? answer.guaranteed.posts.length : null} fewestPosts={fewestCurrent ? fewestCurrent.posts.length : null} />
+        {canApprove && exhibition && (
+          <PostPlansPanel
+            roomId={detail.id}
+            roomVersion={detail.version}
+            dirty={dirty}
+            exhibition={exhibition}
+            plans={data.plans.filter((p) => p.exhibition_id === exhibition.id)}
+            sightRange={sightRange}
+            doubleCover={doubleCover}
+            pinned={pinned}
+            forbidden={forbidden}
+            onSightRange={setSightRange}
+            onDoubleCover={setDoubleCover}
+            onClearConditions={() => {
+              setPinned([]);
+              setForbidden([]);
+            }}
+            onChanged={() => {
+              void queryClient.invalidateQueries({ queryKey });
+              router.refresh();
+            }}
+          />
+        )}
+        {canApprove && !exhibition && <p className="card text-sm">This room is in no current or coming exhibition, so there is no post plan to approve for it.</p>}
+      </aside>
+    </div>
+  );
+}
