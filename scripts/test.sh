@@ -37,6 +37,9 @@ summary() {
   [ ${#PHASES[@]} -gt 0 ] && PHASES[-1]="${PHASES[-1]} ($((SECONDS - phase_start)) s)"
   local line
   for line in "${PHASES[@]}"; do say "   $line"; done
+  if [ "${rc:-0}" -ne 0 ] && [ ${#PHASES[@]} -gt 0 ]; then
+    say "npm test FAILED (exit $rc) in: ${PHASES[-1]}"
+  fi
   say "total $SECONDS s"
 }
 on_cleanup summary
