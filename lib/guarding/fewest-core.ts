@@ -254,9 +254,9 @@ export function planFewestOver(
       }
     }
     coverRounds();
-    proof = lowerBound();
+    const again = lowerBound();
+    if (again.bound > proof.bound) proof = again;
   }
-
   const chosen = best ?? lastTry;
   const certificate = chosen?.certificate ?? certifyCoverage(room, [], demand);
   const posts = chosen?.posts ?? [];
