@@ -257,6 +257,29 @@ describe("the room page in Chromium", () => {
     }
   });
 
+  it("a curator uploads a room file: a bad CSV row is named, a good file is drawn for saving", async () => {
+    const page = await signedInPage("curator");
+    try {
+      const jewellery = await room("Jewellery Room");
+      await page.goto(`/galleries/${jewellery.id}`);
+      await shown(page.getByTestId("guaranteed-post").first());
+      const input = page.locator('input[type="file"]');
+      await input.setInputFiles({ name: "hall.csv", mimeType: "text/csv", buffer: Buffer.from("ring,x,y\n0,0,0\n0,ten,0\n0,10,8\n") });
+      await shown(page.getByTestId("import-problems"));
+      await expect(page.getByTestId("import-problems").textContent()).resolves.toContain('row 3: x is not a number ("ten")');
+      // An L-shaped hall with one pillar: n = 10, h = 1.
+      const csv = "ring,x,y\n0,0,0\n0,14,0\n0,14,6\n0,6,6\n0,6,12\n0,0,12\n1,2,2\n1,2,3\n1,3,3\n1,3,2\n";
+      await input.setInputFiles({ name: "hall.csv", mimeType: "text/csv", buffer: Buffer.from(csv) });
+      await shown(page.getByText("Read hall.csv (CSV): 6 outline corners, 1 obstacle."));
+      await expect.poll(() => page.getByTestId("plan-figures").getByText("10", { exact: true }).count(), { timeout: 15_000 }).toBeGreaterThan(0);
+      await expect(page.getByRole("button", { name: "Save room" }).isEnabled()).resolves.toBe(true);
+      // Nothing is stored until the curator saves.
+      expect((await room("Jewellery Room")).version).toBe(jewellery.version);
+    } finally {
+      await page.context().close();
+    }
+  });
+
   it("operations computes a plan for the exhibition room and approves it", async () => {
     const corridor = await room("Poster Corridor");
     const page = await signedInPage("operations");
@@ -267,6 +290,9 @@ describe("the room page in Chromium", () => {
       const before = await plans.count();
       await page.getByRole("button", { name: "Compute and save plan" }).click();
       await shown(page.getByText(/Plan \d+ proposed:/), 60_000);
+      // The proposal is drawn with its posts so the manager sees what they approve.
+      await shown(page.getByText(/Showing stored plan \d+ \(proposed/));
+      await shown(page.getByTestId("fewest-post").first());
       await expect.poll(() => plans.count(), { timeout: 20_000 }).toBe(before + 1);
       const newest = await db
         .selectFrom("post_plans")

@@ -6,6 +6,8 @@ import type { FewestPreview } from "@/components/plan/plan-input";
 
 interface Props {
   answer: PlanAnswer | null;
+  /** Whose posts the worker certified: "the fewest plan", "plan 12", ... */
+  sightOf: string;
   fewest: FewestPreview | null;
   fewestState: "idle" | "computing" | "unavailable" | "failed";
   fewestMessage: string | null;
@@ -16,7 +18,7 @@ function percent(share: number): string {
   return share >= 1 ? "100%" : `${(Math.floor(share * 1000) / 10).toFixed(1)}%`;
 }
 
-export function PlanFigures({ answer, fewest, fewestState, fewestMessage, colourName }: Props) {
+export function PlanFigures({ answer, sightOf, fewest, fewestState, fewestMessage, colourName }: Props) {
   const ok = answer?.ok ? answer : null;
   const proven = fewest?.proven === true;
   // The worker certifies the fewest plan's posts once known, else the guaranteed posts.
@@ -52,7 +54,7 @@ export function PlanFigures({ answer, fewest, fewestState, fewestMessage, colour
         </dd>
         <dt title="No plan under these conditions has fewer posts">Lower bound</dt>
         <dd className="text-right">{fewest?.lowerBound ?? "–"}</dd>
-        <dt>Floor seen by the {fewest ? "fewest" : "guaranteed"} plan</dt>
+        <dt>Floor seen by {sightOf}</dt>
         <dd data-testid="covered" className={`text-right ${covered !== null && covered < 1 ? "font-semibold text-alert-700" : ""}`}>
           {covered === null ? "–" : percent(covered)}
         </dd>

@@ -18,6 +18,8 @@ interface Props {
   doubleCover: boolean;
   pinned: Point[];
   forbidden: Ring[];
+  shownPlanId: number | null;
+  onShow: (plan: PostPlanView) => void;
   onSightRange: (value: number | null) => void;
   onDoubleCover: (value: boolean) => void;
   onClearConditions: () => void;
@@ -43,6 +45,8 @@ export function PostPlansPanel(props: Props) {
       };
       const { plan } = await apiFetch<{ plan: PostPlanView }>(`/api/rooms/${props.roomId}/post-plans`, { body });
       setMessage({ kind: "ok", text: `Plan ${plan.id} proposed: ${plan.posts.length} posts, ${plan.covered >= 1 ? "the whole floor seen" : `${(plan.covered * 100).toFixed(1)}% seen`}.` });
+      // Show what would be approved: the stored plan's posts and sight on the drawing.
+      props.onShow(plan);
       props.onChanged();
     } catch (error) {
       setMessage({ kind: "error", text: error instanceof ApiRequestError ? error.message : "The plan could not be computed; try again." });
@@ -133,6 +137,15 @@ export function PostPlansPanel(props: Props) {
                   {stale ? " (walls changed since)" : ""}
                   {plan.approved_by_name ? `; approved by ${plan.approved_by_name}` : ""}
                 </p>
+                <button
+                  type="button"
+                  className="mt-1 text-xs underline"
+                  aria-pressed={props.shownPlanId === plan.id}
+                  disabled={stale}
+                  onClick={() => props.onShow(plan)}
+                >
+                  {props.shownPlanId === plan.id ? "Shown on the drawing" : `Show plan ${plan.id} on the drawing`}
+                </button>
                 {plan.status === "proposed" && (
                   <button type="button" className="button-quiet mt-1 w-full" disabled={busy !== null} onClick={() => approve(plan)}>
                     {busy === `approve-${plan.id}` ? "Approving…" : `Approve plan ${plan.id}`}

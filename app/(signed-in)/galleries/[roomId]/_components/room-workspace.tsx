@@ -74,13 +74,16 @@ export function RoomWorkspace({ initial, canEdit, canApprove, exhibitionId }: Pr
   const [fewestState, setFewestState] = useState<"idle" | "computing" | "unavailable" | "failed">("idle");
   const [fewestMessage, setFewestMessage] = useState<string | null>(null);
   const fewestCurrent = fewest && fewest.key === previewKey ? fewest.plan : null;
+  // A stored plan chosen from the list is drawn instead of the live one until the walls change.
+  const [shownPlan, setShownPlan] = useState<PostPlanView | null>(null);
 
   const { answer, working, failure } = usePlanWorker({
     room,
-    sightRange,
-    doubleCover,
-    shownPosts: fewestCurrent ? fewestCurrent.posts : null,
+    sightRange: shownPlan ? shownPlan.options.sightRange : sightRange,
+    doubleCover: shownPlan ? shownPlan.options.doubleCover : doubleCover,
+    shownPosts: shownPlan ? shownPlan.posts : fewestCurrent ? fewestCurrent.posts : null,
   });
+  const sightOf = shownPlan ? `plan ${shownPlan.id}` : fewestCurrent ? "the fewest plan" : "the guaranteed plan";
   const liveProblems = answer && !answer.ok ? answer.problems : [];
   const valid = answer?.ok === true;
 
@@ -127,6 +130,7 @@ export function RoomWorkspace({ initial, canEdit, canApprove, exhibitionId }: Pr
 
   function change(next: Room, commit = true) {
     setDraft(next);
+    setShownPlan(null);
     setNotice(null);
     setServerProblems([]);
     if (commit) setImportProblems([]);
@@ -207,7 +211,7 @@ export function RoomWorkspace({ initial, canEdit, canApprove, exhibitionId }: Pr
     }
     change(result.room);
     setMode("edit");
-    setNotice({ kind: "ok", text: `Read ${file.name} (${result.format.toUpperCase()}): ${result.room.outline.length} outline corners, ${result.room.obstacles.length} obstacles. Check the drawing, then save.` });
+    setNotice({ kind: "ok", text: `Read ${file.name} (${result.format.toUpperCase()}): ${result.room.outline.length} outline corners, ${result.room.obstacles.length} obstacle${result.room.obstacles.length === 1 ? "" : "s"}. Check the drawing, then save.` });
   }
 
   const problems = [...liveProblems, ...serverProblems];
@@ -249,6 +253,14 @@ export function RoomWorkspace({ initial, canEdit, canApprove, exhibitionId }: Pr
           )}
         </div>
         <p className="text-sm text-stone-700">{modes.find((m) => m.mode === mode)?.hint}</p>
+        {shownPlan && (
+          <p className="flex flex-wrap items-center gap-3 rounded-md bg-brass-100 p-2 text-sm" role="status">
+            Showing stored plan {shownPlan.id} ({shownPlan.status}, {shownPlan.posts.length} posts) with its sight range, pins and zones.
+            <button type="button" className="underline" onClick={() => setShownPlan(null)}>
+              Back to the live plan
+            </button>
+          </p>
+        )}
 
         <RoomDrawing
           room={room}
@@ -256,10 +268,10 @@ export function RoomWorkspace({ initial, canEdit, canApprove, exhibitionId }: Pr
           triangles={answer?.ok ? answer.triangles : undefined}
           guaranteed={answer?.ok ? answer.guaranteed : null}
           // Sight shading and unseen parts: of the fewest plan once known, else of the guaranteed posts.
-          sight={answer?.ok ? { ...answer.sight, posts: fewestCurrent ? answer.sight.posts : [] } : null}
+          sight={answer?.ok ? { ...answer.sight, posts: shownPlan || fewestCurrent ? answer.sight.posts : [] } : null}
           problems={problems}
-          pinned={pinned}
-          forbidden={forbidden}
+          pinned={shownPlan ? shownPlan.options.pinned : pinned}
+          forbidden={shownPlan ? shownPlan.options.forbidden : forbidden}
           selectedVertex={selectedVertex}
           selectedObstacle={selectedObstacle}
           show={show}
@@ -358,7 +370,7 @@ export function RoomWorkspace({ initial, canEdit, canApprove, exhibitionId }: Pr
       </div>
 
       <aside className="space-y-4" aria-label="Plan figures">
-        <PlanFigures answer={answer} fewest={fewestCurrent} fewestState={fewestState} fewestMessage={fewestMessage} colourName={answer?.ok ? COLOUR_NAMES[answer.guaranteed.colour] : null} />
+        <PlanFigures answer={answer} sightOf={sightOf} fewest={fewestCurrent} fewestState={fewestState} fewestMessage={fewestMessage} colourName={answer?.ok ? COLOUR_NAMES[answer.guaranteed.colour] : null} />
         <StaffingPanel site={detail.site} guaranteedPosts={answer?.ok ? answer.guaranteed.posts.length : null} fewestPosts={fewestCurrent ? fewestCurrent.posts.length : null} />
         {canApprove && exhibition && (
           <PostPlansPanel
@@ -371,6 +383,8 @@ export function RoomWorkspace({ initial, canEdit, canApprove, exhibitionId }: Pr
             doubleCover={doubleCover}
             pinned={pinned}
             forbidden={forbidden}
+            shownPlanId={shownPlan?.id ?? null}
+            onShow={(plan) => setShownPlan(plan)}
             onSightRange={setSightRange}
             onDoubleCover={setDoubleCover}
             onClearConditions={() => {
