@@ -250,7 +250,9 @@ export function monotonePieces(graph: RoomGraph, diagonals: [number, number][]):
     const from = offset[v];
     const to = offset[v + 1];
     source.fill(v, from, to);
-    if (to - from <= 12) {
+    if (to - from <= 2) {
+      // Two edges: the walk takes "the other one" either way; no order needed.
+    } else if (to - from <= 12) {
       // Insertion sort: corners rarely have more than a handful of edges.
       const centre = points[v];
       for (let i = from + 1; i < to; i++) {

@@ -68,9 +68,17 @@ export function planGuaranteed(room: Room, triangulation?: Triangulation): Guara
   const reached = new Uint8Array(t);
   const order: number[] = [];
   const arrivedBy = new Int32Array(t).fill(-1);
+  // Start the walk at a leaf of the dual graph (an ear) when there is one, as Fisk's proof does.
+  let root = 0;
+  for (let i = 0; i < t; i++) {
+    if (adjacency[i].length <= 1) {
+      root = i;
+      break;
+    }
+  }
   if (t > 0) {
-    reached[0] = 1;
-    order.push(0);
+    reached[root] = 1;
+    order.push(root);
   }
   for (let q = 0; q < order.length; q++) {
     const x = order[q];
@@ -123,7 +131,7 @@ export function planGuaranteed(room: Room, triangulation?: Triangulation): Guara
     if (colourOf[root] === -1) colourOf[root] = colour;
     else if (colourOf[root] !== colour) throw new Error("guaranteed plan: inconsistent 3-colouring (internal error)");
   };
-  if (t > 0) for (let k = 0; k < 3; k++) paint(k, k);
+  if (t > 0) for (let k = 0; k < 3; k++) paint(3 * root + k, k);
   for (let q = 1; q < order.length; q++) {
     const y = order[q];
     const [, , a, b] = neighbours[arrivedBy[y]];
