@@ -67,9 +67,14 @@ export async function computePostPlan(
       ...constraints,
       timeLimit: request.timeLimit ?? 10,
       triangulation,
-      // A certified starting plan: the anytime search then never answers worse than the guaranteed one.
-      guaranteedPosts: request.options.doubleCover ? twoColourPosts(guaranteed) : guaranteed.posts,
+      guaranteedPosts: guaranteed.posts,
     });
+    // Out of time before every point was seen (often under double cover): the guaranteed plan
+    // (two colour classes for double cover) still covers, so answer that instead.
+    if (fewest.covered < 1) {
+      const fallback = await computePostPlan(input, { ...request, method: "guaranteed" });
+      if (fallback.ok && fallback.plan.covered === 1) return fallback;
+    }
     return {
       ok: true,
       plan: {
