@@ -8,13 +8,20 @@
 import ClipperLib from "clipper-lib";
 import type { Point, Ring } from "./types";
 
-type IntPoint = { X: number; Y: number };
+export type IntPoint = { X: number; Y: number };
 interface ClipperModule {
   Clipper: new () => {
     AddPaths(paths: IntPoint[][], type: number, closed: boolean): void;
     Execute(clipType: number, solution: unknown, subjectFill: number, clipFill: number): boolean;
   };
   PolyTree: new () => PolyNode;
+  Paths: new () => IntPoint[][];
+  ClipperOffset: new (miterLimit?: number, arcTolerance?: number) => {
+    AddPaths(paths: IntPoint[][], join: number, end: number): void;
+    Execute(solution: IntPoint[][], delta: number): void;
+  };
+  JoinType: { jtMiter: number };
+  EndType: { etClosedPolygon: number };
   ClipType: { ctIntersection: number; ctUnion: number; ctDifference: number };
   PolyType: { ptSubject: number; ptClip: number };
   PolyFillType: { pftNonZero: number; pftEvenOdd: number };
@@ -34,7 +41,7 @@ export function gridScale(maxAbsCoordinate: number): number {
   return 2 ** Math.floor(Math.log2(2 ** 25 / Math.max(1e-6, maxAbsCoordinate)));
 }
 
-function toPaths(region: Region, scale: number): IntPoint[][] {
+export function toPaths(region: Region, scale: number): IntPoint[][] {
   const paths: IntPoint[][] = [];
   for (const polygon of region) {
     polygon.forEach((ring, i) => {
@@ -73,4 +80,23 @@ export function clip(operation: "union" | "intersection" | "difference", subject
   const type = operation === "union" ? Clipper.ClipType.ctUnion : operation === "intersection" ? Clipper.ClipType.ctIntersection : Clipper.ClipType.ctDifference;
   clipper.Execute(type, tree, Clipper.PolyFillType.pftNonZero, Clipper.PolyFillType.pftNonZero);
   return fromTree(tree, scale);
+}
+
+/** Integer-path operation for callers that keep their shapes on the grid (the arrangement bound). */
+export function clipPaths(operation: "intersection" | "difference", subject: IntPoint[][], clipBy: IntPoint[][]): IntPoint[][] {
+  const clipper = new Clipper.Clipper();
+  clipper.AddPaths(subject, Clipper.PolyType.ptSubject, true);
+  clipper.AddPaths(clipBy, Clipper.PolyType.ptClip, true);
+  const out = new Clipper.Paths();
+  clipper.Execute(operation === "intersection" ? Clipper.ClipType.ctIntersection : Clipper.ClipType.ctDifference, out, Clipper.PolyFillType.pftNonZero, Clipper.PolyFillType.pftNonZero);
+  return out;
+}
+
+/** Grows integer paths outward by `delta` grid cells (mitred corners). */
+export function growPaths(paths: IntPoint[][], delta: number): IntPoint[][] {
+  const offset = new Clipper.ClipperOffset(4, 0.25);
+  offset.AddPaths(paths, Clipper.JoinType.jtMiter, Clipper.EndType.etClosedPolygon);
+  const out = new Clipper.Paths();
+  offset.Execute(out, delta);
+  return out;
 }

@@ -9,7 +9,8 @@
 import type { Point, Ring, Room, Triangulation } from "../geometry/types";
 import { createSightlines, type Sightlines } from "../geometry/visibility";
 import { clipToSightRange, discCorners } from "../geometry/visibility-range";
-import { certifyCoverage, pointInside, roomRegion, type CoverageCertificate, type Region } from "../geometry/coverage";
+import { certifyCoverage, pointInside, ringArea, roomRegion, type CoverageCertificate, type Region } from "../geometry/coverage";
+import { arrangementBound } from "./lower-bound-arrangement";
 import { allowedPost, checkConstraints, insideClosedRing, type ConstraintProblem, type PostConstraints } from "./constraints";
 import { independentWitnessBound, type BoundWitness } from "./lower-bound";
 import { solveBinaryProgram } from "./fewest-solver";
@@ -31,6 +32,11 @@ export interface FewestPlan {
   uncovered: Ring[][];
   /** Witnesses that prove the lower bound. */
   boundWitnesses: Point[];
+  /**
+   * Which proof: "independent witnesses" (pairwise disjoint regions, lower-bound.ts) or "witness
+   * cells" (the fewest posts that can see the witnesses, over their regions' overlay; lower-bound-arrangement.ts).
+   */
+  boundMethod: "independent witnesses" | "witness cells";
   witnesses: number;
   rounds: number;
   /** Why the search stopped: the bound was met, time ran out, or the witnesses were all seen. */
@@ -257,6 +263,21 @@ export function planFewestOver(
     const again = lowerBound();
     if (again.bound > proof.bound) proof = again;
   }
+  // The stronger bound (witness cells, lower-bound-arrangement.ts) when the packing falls short.
+  let boundMethod: FewestPlan["boundMethod"] = "independent witnesses";
+  if (best && proof.bound < best.posts.length && demand === 1 && pinned.length === 0 && secondsLeft() > 0.3) {
+    const regionAt = (p: Point, ring: Ring): Region => (range ? clipToSightRange(ring, p, range, "circumscribed") : [[ring]]);
+    const packed = new Set(proof.witnesses.map(key));
+    const first = proof.witnesses.map((p) => ({ point: p, ring: sight(p)! })).filter((w) => w.ring);
+    const rest = witnesses.filter((w) => !packed.has(key(w.point))).sort((a, b) => Math.abs(ringArea(a.ring)) - Math.abs(ringArea(b.ring)));
+    const ordered = [...first, ...rest];
+    const dual = arrangementBound(room, ordered.map((w) => regionAt(w.point, w.ring)), secondsLeft() * 0.9);
+    if (dual.bound > proof.bound) {
+      proof = { bound: dual.bound, witnesses: ordered.slice(0, dual.witnesses).map((w) => w.point) };
+      boundMethod = "witness cells";
+    }
+  }
+
   const chosen = best ?? lastTry;
   const certificate = chosen?.certificate ?? certifyCoverage(room, [], demand);
   const posts = chosen?.posts ?? [];
@@ -268,6 +289,7 @@ export function planFewestOver(
     covered: certificate.covered,
     uncovered: certificate.uncovered,
     boundWitnesses: proof.witnesses,
+    boundMethod,
     witnesses: witnesses.length,
     rounds,
     stoppedBy: proven ? "proven" : stoppedBy,

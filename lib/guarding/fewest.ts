@@ -28,7 +28,10 @@ export function fewestReport(plan: FewestPlan) {
     proven: plan.proven,
     covered: plan.covered,
     uncovered: plan.uncovered.map((polygon) => polygon[0]),
-    lowerBoundProof: "independent witnesses: pairwise disjoint visibility regions",
+    lowerBoundProof:
+      plan.boundMethod === "witness cells"
+        ? "witness cells: no set of fewer points sees all bound witnesses (overlay of their visibility regions, exact integer program)"
+        : "independent witnesses: pairwise disjoint visibility regions",
     boundWitnesses: plan.boundWitnesses,
     stoppedBy: plan.stoppedBy,
     ...(plan.problems.length ? { problems: plan.problems } : {}),
