@@ -53,7 +53,7 @@ export default async function (): Promise<string> {
   small.sort((a, b) => a - b);
   const median = small.length ? small[Math.floor(small.length / 2)] : NaN;
   return [
-    `Time limit ${TIME_LIMIT} s per room; lower bound: independent witnesses (pairwise disjoint visibility regions).`,
+    `Time limit ${TIME_LIMIT} s per room; lower bound: independent witnesses, or witness cells where the packing falls short (lib/guarding/lower-bound*.ts).`,
     "",
     "| summary | value |",
     "| --- | --- |",
