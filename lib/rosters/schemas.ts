@@ -2,7 +2,14 @@
 import { z } from "zod";
 import { isMonday } from "./scenario";
 
-const isoDate = z.string().regex(/^\d{4}-\d{2}-\d{2}$/, "use a date like 2027-03-22");
+const isoDate = z
+  .string()
+  .regex(/^\d{4}-\d{2}-\d{2}$/, "use a date like 2027-03-22")
+  // 2027-02-30 has the right shape but is no day of the calendar.
+  .refine((date) => {
+    const day = new Date(`${date}T00:00:00Z`);
+    return !Number.isNaN(day.getTime()) && day.toISOString().slice(0, 10) === date;
+  }, "no such day in the calendar");
 const monday = isoDate.refine(isMonday, "a roster week starts on a Monday; pick a Monday");
 const positiveId = (what: string) => z.coerce.number({ error: `${what} must be a number` }).int(`${what} must be a whole number`).positive(`${what} must be positive`);
 

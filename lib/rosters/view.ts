@@ -8,6 +8,7 @@ import { openingOf } from "@/lib/scheduling/demand";
 import { addLocalDays } from "@/lib/scheduling/time";
 import { rosterScenario } from "./edit";
 import { ROSTER_BUILD_JOB } from "./publish";
+import { guardKey } from "./scenario";
 import { postLabel, roomsOfScenario } from "./shift-events";
 
 export interface RosterView {
@@ -54,7 +55,7 @@ export async function rosterView(db: Kysely<Database>, rosterId: number): Promis
     publishedAt: roster.published_at?.toISOString() ?? null,
     supersedes: roster.supersedes,
     posts: scenario.posts.map((p) => ({ id: p.id, label: postLabel(p.id, rooms), skills: p.skills })),
-    guards: guards.filter((g) => onStaff.has(`G${g.id}`)).map((g) => ({ id: g.id, name: g.name, skills: g.skills })),
+    guards: guards.filter((g) => onStaff.has(guardKey(g.id))).map((g) => ({ id: g.id, name: g.name, skills: g.skills })),
     shifts: shifts.map((s) => ({
       id: s.id,
       guardId: s.guard_id,

@@ -142,7 +142,9 @@ describe("operations builds and publishes a week; the guard sees it", () => {
       await build.click();
       await shown(page.getByText(/^Building the roster:/));
       // The engine needs a few seconds for the demo week; the page polls the job.
-      await shown(page.getByTestId("roster-status").getByText(/^Draft \(revision \d+\)$/), 120_000);
+      await shown(page.getByText("Building the roster: done"), 120_000);
+      const revision = await db.selectFrom("rosters").select("revision").where("starts_on", "=", WEEK).where("status", "=", "draft").executeTakeFirstOrThrow();
+      await shown(page.getByTestId("roster-status").getByText(`Draft (revision ${revision.revision})`, { exact: true }), 30_000);
       await shown(page.getByTestId("violations").getByText("None: every shift keeps every rule."));
       await shown(page.getByTestId("roster-grid"));
       await page.getByRole("button", { name: "Publish", exact: true }).click();

@@ -168,3 +168,23 @@ describe("reassigning a segment, checked by the engine's rules", () => {
     expect(engineRoster(stored)).toEqual(roster);
   });
 });
+
+describe("the roster API's input schemas", () => {
+  it("takes a week only from a Monday, and time off only on real days in order", async () => {
+    const { buildRequestSchema, timeOffRequestSchema } = await import("@/lib/rosters/schemas");
+    expect(buildRequestSchema.safeParse({ startsOn: "2027-03-22" }).success).toBe(true);
+    const tuesday = buildRequestSchema.safeParse({ startsOn: "2027-03-23" });
+    expect(tuesday.success).toBe(false);
+    expect(tuesday.error!.issues[0]!.message).toMatch(/Monday/);
+    expect(timeOffRequestSchema.safeParse({ startsOn: "2027-02-27", endsOn: "2027-03-01" }).data).toEqual({ startsOn: "2027-02-27", endsOn: "2027-03-01", note: "" });
+    for (const [startsOn, endsOn, field] of [
+      ["2027-02-30", "2027-03-01", "startsOn"],
+      ["2027-13-01", "2027-13-02", "startsOn"],
+      ["2027-03-05", "2027-03-04", "endsOn"],
+    ] as const) {
+      const parsed = timeOffRequestSchema.safeParse({ startsOn, endsOn });
+      expect(parsed.success, `${startsOn}..${endsOn}`).toBe(false);
+      expect(parsed.error!.issues[0]!.path).toEqual([field]);
+    }
+  });
+});

@@ -60,7 +60,8 @@ export function RosterWorkbench({ initialWeek }: { initialWeek: string }) {
     if (buildJob.data?.status === "done") {
       setShownRosterId(null);
       void queryClient.invalidateQueries({ queryKey: ["roster-week", week] });
-      void queryClient.invalidateQueries({ queryKey: ["roster"] });
+      // A rebuilt draft keeps its id: drop what was shown, so nobody edits or publishes the old revision.
+      void queryClient.resetQueries({ queryKey: ["roster"] });
       router.refresh();
     }
   }, [buildJob.data?.status, queryClient, week, router]);
@@ -94,7 +95,8 @@ export function RosterWorkbench({ initialWeek }: { initialWeek: string }) {
 
   const building = buildJob.data ? buildJob.data.status === "queued" || buildJob.data.status === "running" : build.isPending;
   const draft = overview.data?.draft ?? null;
-  const shown = roster.data ?? null;
+  // While a build runs the draft on screen is about to be replaced: show it again once rebuilt.
+  const shown = building ? null : (roster.data ?? null);
 
   return (
     <section aria-labelledby="roster-heading" className="card space-y-4">
@@ -146,7 +148,7 @@ export function RosterWorkbench({ initialWeek }: { initialWeek: string }) {
               <button
                 type="button"
                 className="button"
-                disabled={!interactive || publish.isPending || shown.violations.length > 0}
+                disabled={!interactive || publish.isPending || roster.isFetching || shown.violations.length > 0}
                 onClick={() => publish.mutate(shown)}
               >
                 Publish
