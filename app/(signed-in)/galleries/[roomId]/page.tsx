@@ -56,15 +56,19 @@ export default async function RoomPage({ params }: Params) {
         canEdit={can(user.role, "rooms:edit")}
         canApprove={can(user.role, "plans:approve")}
         exhibitionId={exhibition?.id ?? null}
+        cautions={
+          <section aria-labelledby="plan-cautions" className="rounded-card border border-brass-300 bg-brass-100 p-gutter text-sm text-stone-900">
+            <h2 id="plan-cautions" className="mb-1 text-base">
+              Before you rely on this plan
+            </h2>
+            <ul className="list-disc space-y-1 pl-5">
+              {planCautions.map((caution) => (
+                <li key={caution}>{caution}</li>
+              ))}
+            </ul>
+          </section>
+        }
       />
-      <aside aria-label="Before you rely on this plan" className="rounded-card border border-brass-300 bg-brass-100 p-gutter text-sm text-stone-900">
-        <h2 className="mb-1 text-base">Before you rely on this plan</h2>
-        <ul className="list-disc space-y-1 pl-5">
-          {planCautions.map((caution) => (
-            <li key={caution}>{caution}</li>
-          ))}
-        </ul>
-      </aside>
     </div>
   );
 }

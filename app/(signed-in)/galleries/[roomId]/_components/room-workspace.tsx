@@ -30,6 +30,8 @@ interface Props {
   canApprove: boolean;
   /** The exhibition the page plans for (running today, else the next), if the room is in one. */
   exhibitionId: number | null;
+  /** Shown beside the plan, above the figures (the page passes the plan cautions). */
+  cautions?: React.ReactNode;
 }
 
 /** How long the room must stay still before the fewest plan is asked for. */
@@ -37,7 +39,7 @@ const PREVIEW_DELAY_MS = 700;
 /** Solver seconds the preview may spend while the curator waits. */
 const PREVIEW_SECONDS = 2;
 
-export function RoomWorkspace({ initial, canEdit, canApprove, exhibitionId }: Props) {
+export function RoomWorkspace({ initial, canEdit, canApprove, exhibitionId, cautions }: Props) {
   const queryClient = useQueryClient();
   const router = useRouter();
   const queryKey = ["room", initial.room.id];
@@ -370,6 +372,7 @@ export function RoomWorkspace({ initial, canEdit, canApprove, exhibitionId }: Pr
       </div>
 
       <aside className="space-y-4" aria-label="Plan figures">
+        {cautions}
         <PlanFigures answer={answer} sightOf={sightOf} fewest={fewestCurrent} fewestState={fewestState} fewestMessage={fewestMessage} colourName={answer?.ok ? COLOUR_NAMES[answer.guaranteed.colour] : null} />
         <StaffingPanel site={detail.site} guaranteedPosts={answer?.ok ? answer.guaranteed.posts.length : null} fewestPosts={fewestCurrent ? fewestCurrent.posts.length : null} />
         {canApprove && exhibition && (
