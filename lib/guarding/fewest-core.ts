@@ -180,15 +180,15 @@ export function planFewestOver(
   let rounds = 0;
   let stoppedBy: FewestPlan["stoppedBy"] = "time-limit";
   const pinnedIndex = pinned.map((p) => candidateKeys.get(key(p))!).filter((i) => i !== undefined);
-  function coverRounds() {
-  while (searchSecondsLeft() > 0) {
+  function coverRounds(timeLeft = searchSecondsLeft) {
+  while (timeLeft() > 0) {
     rounds++;
     const answer = solveBinaryProgram({
       sense: "minimise",
       weights: candidates.map(() => 1),
       atLeast: seenBy.map((items) => ({ items, need: Math.min(demand, items.length) })),
       fixed: pinnedIndex,
-      seconds: searchSecondsLeft(),
+      seconds: timeLeft(),
     });
     if (answer.status === "infeasible" || (answer.status === "stopped" && answer.chosen.length === 0)) break;
     const posts = answer.chosen.map((j) => candidates[j]);
@@ -265,17 +265,25 @@ export function planFewestOver(
   }
   // The stronger bound (witness cells, lower-bound-arrangement.ts) when the packing falls short.
   let boundMethod: FewestPlan["boundMethod"] = "independent witnesses";
-  if (best && proof.bound < best.posts.length && demand === 1 && pinned.length === 0 && secondsLeft() > 0.3) {
+  // Tozoni et al.'s step when they still disagree: a post in each cell the bound chose is a new
+  // candidate; if those posts see the room the plan meets the bound, else their gaps add witnesses.
+  for (let round = 0; round < 6 && best && proof.bound < best.posts.length && demand === 1 && pinned.length === 0 && secondsLeft() > 0.3; round++) {
     const regionAt = (p: Point, ring: Ring): Region => (range ? clipToSightRange(ring, p, range, "circumscribed") : [[ring]]);
     const packed = new Set(proof.witnesses.map(key));
     const first = proof.witnesses.map((p) => ({ point: p, ring: sight(p)! })).filter((w) => w.ring);
     const rest = witnesses.filter((w) => !packed.has(key(w.point))).sort((a, b) => Math.abs(ringArea(a.ring)) - Math.abs(ringArea(b.ring)));
     const ordered = [...first, ...rest];
-    const dual = arrangementBound(room, ordered.map((w) => regionAt(w.point, w.ring)), secondsLeft() * 0.9);
+    const dual = arrangementBound(room, ordered.map((w) => regionAt(w.point, w.ring)), secondsLeft() * 0.6);
     if (dual.bound > proof.bound) {
       proof = { bound: dual.bound, witnesses: ordered.slice(0, dual.witnesses).map((w) => w.point) };
       boundMethod = "witness cells";
     }
+    if (proof.bound >= best.posts.length || dual.posts.length === 0) break;
+    const before = candidates.length;
+    for (const p of dual.posts) addCandidate(p);
+    if (candidates.length === before) break;
+    const spendUntil = performance.now() + 500 * secondsLeft();
+    coverRounds(() => Math.max(0, (spendUntil - performance.now()) / 1000));
   }
 
   const chosen = best ?? lastTry;

@@ -10,8 +10,8 @@
 // rounding on the grid cannot drop a witness from a cell that should hold it. Growing only adds
 // witnesses to cells, which can only lower the bound, so it stays a proof. Witnesses are added
 // one at a time; when time runs out the overlay of the witnesses added so far is complete and used.
-import type { Room } from "../geometry/types";
-import type { Region } from "../geometry/coverage";
+import type { Point, Room } from "../geometry/types";
+import { pointInside, type Region } from "../geometry/coverage";
 import { clipPaths, gridScale, growPaths, toPaths, type IntPoint } from "../geometry/coverage-clipper";
 import { solveBinaryProgram } from "./fewest-solver";
 
@@ -42,9 +42,10 @@ function bounds(paths: IntPoint[][]) {
 
 /**
  * The fewest posts that can see the given witnesses (in the order given, as many as time allows),
- * or 0 when not even the integer program could be solved to optimality in time.
+ * or 0 when not even the integer program could be solved to optimality in time; with a point in
+ * each chosen cell, which the planner tries as posts.
  */
-export function arrangementBound(room: Room, regions: Region[], seconds: number): { bound: number; witnesses: number } {
+export function arrangementBound(room: Room, regions: Region[], seconds: number): { bound: number; witnesses: number; posts: Point[] } {
   const stopAt = performance.now() + 1000 * seconds;
   let size = 1;
   for (const ring of [room.outline, ...room.obstacles]) for (const [x, y] of ring) size = Math.max(size, Math.abs(x), Math.abs(y));
@@ -79,17 +80,19 @@ export function arrangementBound(room: Room, regions: Region[], seconds: number)
     cells = next;
     used = k + 1;
   }
-  if (used === 0) return { bound: 0, witnesses: 0 };
+  if (used === 0) return { bound: 0, witnesses: 0, posts: [] };
   // Only cells whose witness set no other cell's set contains matter to the minimum.
-  const sets = [...new Map(cells.map((c) => [c.sees.join(","), c.sees])).values()].sort((a, b) => b.length - a.length);
-  const maximal: number[][] = [];
-  for (const set of sets) {
-    if (set.length === 0) continue;
-    if (!maximal.some((m) => set.every((w) => m.includes(w)))) maximal.push(set);
+  const byKey = new Map(cells.map((c) => [c.sees.join(","), c]));
+  const sets = [...byKey.values()].sort((a, b) => b.sees.length - a.sees.length);
+  const maximalCells: Cell[] = [];
+  for (const cell of sets) {
+    if (cell.sees.length === 0) continue;
+    if (!maximalCells.some((m) => cell.sees.every((w) => m.sees.includes(w)))) maximalCells.push(cell);
   }
+  const maximal = maximalCells.map((c) => c.sees);
   const holding: number[][] = Array.from({ length: used }, () => []);
   maximal.forEach((set, j) => set.forEach((w) => holding[w].push(j)));
-  if (holding.some((h) => h.length === 0)) return { bound: 0, witnesses: used };
+  if (holding.some((h) => h.length === 0)) return { bound: 0, witnesses: used, posts: [] };
   const answer = solveBinaryProgram({
     sense: "minimise",
     weights: maximal.map(() => 1),
@@ -97,5 +100,6 @@ export function arrangementBound(room: Room, regions: Region[], seconds: number)
     seconds: Math.max(0.1, (stopAt - performance.now()) / 1000 + 0.5),
   });
   // Only a proven optimum is a bound; an unfinished search only gives an upper value.
-  return { bound: answer.status === "optimal" ? answer.chosen.length : 0, witnesses: used };
+  const posts = answer.chosen.map((j) => pointInside(maximalCells[j].paths.map((path) => path.map((p) => [p.X / scale, p.Y / scale] as Point))));
+  return { bound: answer.status === "optimal" ? answer.chosen.length : 0, witnesses: used, posts };
 }
