@@ -4,8 +4,10 @@
 // the room's corners, the pinned posts and points in the witnesses' regions; an integer program
 // (HiGHS) picks the fewest candidates that see every witness; the coverage certificate then checks
 // the whole room, and each unseen part adds a witness, until nothing is unseen. The lower bound is
-// an independent witness set (see lower-bound.ts). Anytime: at the time limit the best certified
-// plan found so far is returned with its bound.
+// an independent witness set (lower-bound.ts) or, where that falls short, the witness problem
+// solved exactly over the overlay of the witnesses' regions (lower-bound-arrangement.ts), whose
+// chosen cells also offer new candidate posts. Anytime: at the time limit the best certified plan
+// found so far is returned with its bound.
 import type { Point, Ring, Room, Triangulation } from "../geometry/types";
 import { createSightlines, type Sightlines } from "../geometry/visibility";
 import { clipToSightRange, discCorners } from "../geometry/visibility-range";
@@ -180,40 +182,41 @@ export function planFewestOver(
   let rounds = 0;
   let stoppedBy: FewestPlan["stoppedBy"] = "time-limit";
   const pinnedIndex = pinned.map((p) => candidateKeys.get(key(p))!).filter((i) => i !== undefined);
+  // Rounds of set cover and certificate until the room is covered, time is up or nothing improves.
   function coverRounds(timeLeft = searchSecondsLeft) {
-  while (timeLeft() > 0) {
-    rounds++;
-    const answer = solveBinaryProgram({
-      sense: "minimise",
-      weights: candidates.map(() => 1),
-      atLeast: seenBy.map((items) => ({ items, need: Math.min(demand, items.length) })),
-      fixed: pinnedIndex,
-      seconds: timeLeft(),
-    });
-    if (answer.status === "infeasible" || (answer.status === "stopped" && answer.chosen.length === 0)) break;
-    const posts = answer.chosen.map((j) => candidates[j]);
-    if (best && posts.length >= best.posts.length && answer.status === "optimal") {
-      // The witnesses already force as many posts as the best certified plan: it cannot improve here.
-      stoppedBy = "covered";
-      break;
+    while (timeLeft() > 0) {
+      rounds++;
+      const answer = solveBinaryProgram({
+        sense: "minimise",
+        weights: candidates.map(() => 1),
+        atLeast: seenBy.map((items) => ({ items, need: Math.min(demand, items.length) })),
+        fixed: pinnedIndex,
+        seconds: timeLeft(),
+      });
+      if (answer.status === "infeasible" || (answer.status === "stopped" && answer.chosen.length === 0)) break;
+      const posts = answer.chosen.map((j) => candidates[j]);
+      if (best && posts.length >= best.posts.length && answer.status === "optimal") {
+        // The witnesses already force as many posts as the best certified plan: it cannot improve here.
+        stoppedBy = "covered";
+        break;
+      }
+      const certificate = certify(posts);
+      lastTry = { posts, certificate };
+      if (certificate.covered === 1) {
+        if (!best || posts.length < best.posts.length) best = { posts, certificate };
+        stoppedBy = "covered";
+        break;
+      }
+      // Each unseen part gets a witness, which is also a candidate post (it surely sees itself).
+      const before = witnesses.length;
+      for (const polygon of certificate.uncovered) {
+        const p = pointInside(polygon);
+        addWitness(p);
+        addCandidate(p);
+      }
+      // No new witness (an unseen part too thin to hold a fresh point): more rounds would repeat this one.
+      if (witnesses.length === before) break;
     }
-    const certificate = certify(posts);
-    lastTry = { posts, certificate };
-    if (certificate.covered === 1) {
-      if (!best || posts.length < best.posts.length) best = { posts, certificate };
-      stoppedBy = "covered";
-      break;
-    }
-    // Each unseen part gets a witness, which is also a candidate post (it surely sees itself).
-    const before = witnesses.length;
-    for (const polygon of certificate.uncovered) {
-      const p = pointInside(polygon);
-      addWitness(p);
-      addCandidate(p);
-    }
-    // No new witness (an unseen part too thin to hold a fresh point): more rounds would repeat this one.
-    if (witnesses.length === before) break;
-  }
   }
 
   // Extra witnesses for the bound only, on the walls close to each corner (small regions pack well).
