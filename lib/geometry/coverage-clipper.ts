@@ -92,6 +92,14 @@ export function clipPaths(operation: "intersection" | "difference", subject: Int
   return out;
 }
 
+/**
+ * Whether some disc of radius `cells` grid cells fits inside the polygon (outer ring, then holes):
+ * the polygon shrunk by that much (its holes grown) is not empty.
+ */
+export function holdsDisc(polygon: Ring[], scale: number, cells: number): boolean {
+  return growPaths(toPaths([polygon], scale), -cells).length > 0;
+}
+
 /** Grows integer paths outward by `delta` grid cells (mitred corners). */
 export function growPaths(paths: IntPoint[][], delta: number): IntPoint[][] {
   const offset = new Clipper.ClipperOffset(4, 0.25);

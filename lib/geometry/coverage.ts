@@ -7,22 +7,16 @@
 // Clipper's grid (2^-25 of the largest coordinate: about 3 micrometres in a 100 m room), so two
 // regions that share a shadow edge meet along two separately rounded copies of it, leaving
 // slivers one or two grid cells wide. An unseen part counts as such a rounding sliver, not a gap,
-// when its mean width (2 × area / perimeter) is below SLIVER_CELLS grid cells or its area below
-// SLIVER_SHARE × the room's area; `covered` is 1 when nothing else is unseen. An unseen part whose area is below SLIVER_SHARE × the room's area is treated
-// as rounding, not as a gap, and `covered` is reported as 1 when the rest is empty.
+// only when it is thin everywhere: no disc of diameter SLIVER_CELLS grid cells fits inside it
+// (checked by shrinking it by half that on Clipper's grid). Anything wider anywhere is a gap and
+// is reported whole, so `covered` is 1 only when every unseen part is thinner than that at every
+// point. (An earlier test by mean width, 2 × area / perimeter, and by a share of the room's area
+// could average a real gap of several millimetres away when a long rounding sliver touched it.)
 import type { Point, Ring, Room } from "./types";
-import { clip, gridScale, type Region } from "./coverage-clipper";
+import { clip, gridScale, holdsDisc, type Region } from "./coverage-clipper";
 
-/** Unseen parts smaller than this share of the room's area are rounding slivers, not gaps. */
-export const SLIVER_SHARE = 1e-9;
-/** Unseen parts thinner than this many grid cells on average are rounding slivers, not gaps. */
+/** Unseen parts in which no disc this many grid cells across fits are rounding slivers, not gaps. */
 export const SLIVER_CELLS = 4;
-
-function perimeter(polygon: Ring[]): number {
-  let sum = 0;
-  for (const ring of polygon) for (let i = 0, j = ring.length - 1; i < ring.length; j = i++) sum += Math.hypot(ring[i][0] - ring[j][0], ring[i][1] - ring[j][1]);
-  return sum;
-}
 
 export type { Region };
 
@@ -96,12 +90,7 @@ export function certifyCoverage(room: Room, regions: Region[], demand: 1 | 2 = 1
   const scale = gridScale(coordinateSize([whole]));
   const seen = demand === 2 ? seenTwice(regions, scale) : unionOf(regions, scale);
   const unseen = seen.length ? clip("difference", [whole], [seen], scale) : whole;
-  const sliver = SLIVER_SHARE * roomArea;
-  const cell = 1 / scale;
-  const uncovered = unseen.filter((polygon) => {
-    const area = regionArea([polygon]);
-    return area >= sliver && (2 * area) / perimeter(polygon) >= SLIVER_CELLS * cell;
-  });
+  const uncovered = unseen.filter((polygon) => holdsDisc(polygon, scale, SLIVER_CELLS / 2));
   const uncoveredArea = regionArea(uncovered);
   const covered = uncovered.length === 0 ? 1 : Math.max(0, Math.min(1, 1 - uncoveredArea / roomArea));
   return { covered, uncovered, uncoveredArea, roomArea, demand };
