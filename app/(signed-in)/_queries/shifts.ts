@@ -1,5 +1,6 @@
 import "server-only";
 import { db } from "@/db";
+import { latestPublishedRosters } from "@/db/queries/rosters";
 import type { ShiftBreak, ShiftSegment } from "@/db/schema";
 
 export interface GuardShift {
@@ -22,29 +23,29 @@ export async function guardForUser(userId: number) {
   );
 }
 
-// A guard sees published rosters only: a draft may still change under them.
+// A guard sees published rosters only (a draft may still change under them), and of each week only
+// the latest published version, the one My shifts and the calendar feed show too.
 function publishedShiftsOf(guardId: number) {
   return db
     .selectFrom("shifts")
-    .innerJoin("rosters", "rosters.id", "shifts.roster_id")
+    .innerJoin(latestPublishedRosters(db).as("roster"), "roster.id", "shifts.roster_id")
     .select([
       "shifts.id",
       "shifts.starts_at",
       "shifts.ends_at",
       "shifts.segments",
       "shifts.breaks",
-      "rosters.version as roster_version",
+      "roster.version as roster_version",
     ])
-    .where("shifts.guard_id", "=", guardId)
-    .where("rosters.status", "=", "published");
+    .where("shifts.guard_id", "=", guardId);
 }
 
-/** A guard's published shifts ending after `from`, earliest first. */
+/** A guard's shifts in the current version of each week, ending after `from`, earliest first. */
 export async function shiftsOfGuard(guardId: number, from: Date, limit = 200): Promise<GuardShift[]> {
   return publishedShiftsOf(guardId).where("shifts.ends_at", ">", from).orderBy("shifts.starts_at").limit(limit).execute();
 }
 
-/** The guard's next (or current) published shift, or null. */
+/** The guard's next (or current) shift in the current version of its week, or null. */
 export async function nextShiftOfGuard(guardId: number, now: Date = new Date()): Promise<GuardShift | null> {
   return (await publishedShiftsOf(guardId).where("shifts.ends_at", ">", now).orderBy("shifts.starts_at").limit(1).executeTakeFirst()) ?? null;
 }
