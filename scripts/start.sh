@@ -36,7 +36,7 @@ db_prepare --if-empty
 mail_fake_start
 
 if [ "${SIGHTWARD_REBUILD:-0}" != 1 ] && build_is_current; then
-  say "the build in .next is newer than every source file; skipping next build (SIGHTWARD_REBUILD=1 forces one)"
+  say "the build in ${SIGHTWARD_DIST_DIR:-.next} is newer than every source file; skipping next build (SIGHTWARD_REBUILD=1 forces one)"
 else
   next_build
 fi

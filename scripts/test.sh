@@ -1,7 +1,7 @@
 #!/usr/bin/env bash
 # npm test: the npm start set-up against a fresh `sightward_test` database, then
 #   1. unit and integration tests (vitest; integration tests use the real PostgreSQL),
-#   2. next build, served on 127.0.0.1:3100,
+#   2. next build into .next-test (SIGHTWARD_DIST_DIR, read by next.config.mjs), served on 127.0.0.1:3100,
 #   3. browser tests (vitest.e2e.config.ts: playwright-core driving Debian's chromium).
 # Fails fast; always stops what it started. Works with CI=true, no stdin, as root.
 set -euo pipefail
@@ -23,6 +23,9 @@ export E2E_BASE_URL=http://127.0.0.1:$TEST_PORT
 export CHROMIUM_PATH=${CHROMIUM_PATH:-/usr/bin/chromium}
 export NEXT_TELEMETRY_DISABLED=1
 export CI=${CI:-true}
+# Our own build folder: an npm start serving .next in this checkout keeps running undisturbed.
+# Exported, so the e2e test that starts a second copy of the app serves this build too.
+export SIGHTWARD_DIST_DIR=.next-test
 
 PHASES=()
 phase_start=$SECONDS
@@ -55,14 +58,6 @@ if [ ! -x "$CHROMIUM_PATH" ]; then
 fi
 require_free_port "$TEST_PORT" TEST_PORT "the app under test"
 require_free_port "$SMTP_PORT" TEST_SMTP_PORT "the test mail fake"
-for pidfile in "$ROOT"/.data/run/app-*.pid; do
-  [ -f "$pidfile" ] || continue
-  read -r app_pid _ <"$pidfile" || true
-  if pid_alive "$app_pid" && [ "$pidfile" != "$ROOT/.data/run/app-$TEST_PORT.pid" ]; then
-    say "warning: npm start serves this checkout (pid $app_pid); the next build below replaces the .next folder it serves"
-  fi
-done
-
 pg_start
 pg_recreate_database sightward_test
 export DATABASE_URL=$(pg_url sightward_test)

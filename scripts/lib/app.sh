@@ -20,13 +20,15 @@ mail_fake_start() {
   say "mail fake on 127.0.0.1:$SMTP_PORT (pid $MAIL_FAKE_PID), messages in $MAIL_DIR"
 }
 
-# True when .next holds a build newer than every source file (so npm start may skip building).
+# True when the build folder (SIGHTWARD_DIST_DIR, default .next: next.config.mjs reads the same
+# variable) holds a build newer than every source file (so npm start may skip building).
 build_is_current() {
-  [ -s "$ROOT/.next/BUILD_ID" ] || return 1
+  local dist=${SIGHTWARD_DIST_DIR:-.next}
+  [ -s "$ROOT/$dist/BUILD_ID" ] || return 1
   local newer
   newer=$(cd "$ROOT" && find app components lib db fonts public styles middleware.ts proxy.ts instrumentation.ts \
     next.config.mjs next.config.ts tailwind.config.ts postcss.config.mjs postcss.config.js tsconfig.json package.json package-lock.json \
-    -newer .next/BUILD_ID -type f -print -quit 2>/dev/null || true)
+    -newer "$dist/BUILD_ID" -type f -print -quit 2>/dev/null || true)
   [ -z "$newer" ]
 }
 
