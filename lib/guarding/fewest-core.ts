@@ -48,6 +48,26 @@ export interface FewestPlan {
 
 const key = (p: Point) => `${p[0]},${p[1]}`;
 
+/**
+ * Deterministic work limits. They, not the clock, normally end each step of the search, so the same
+ * room gives the same plan on any machine that finishes them within the time limit; the time limit
+ * stays as a safety net (and then the answer depends on where the clock cut it).
+ */
+export const WORK_LIMITS = {
+  /** Cover rounds (integer program + certificate) in the first search. */
+  firstRounds: 150,
+  /** Cover rounds after each batch of new candidate posts. */
+  laterRounds: 40,
+  /** Branch-and-bound nodes per integer program (HiGHS mip_max_nodes). */
+  solverNodes: 20000,
+  /** Witnesses offered to the independent-witness bound, smallest regions first. */
+  packingWitnesses: 2500,
+  /** Boolean operations the witness-cell overlay may spend per bound. */
+  cellClips: 40000,
+  /** Rounds of witness-cell bound and its posts as candidates. */
+  cellRounds: 6,
+};
+
 /** Corners of the room where the floor turns less than 180°: the hardest places to see. */
 function convexCorners(room: Room): Point[] {
   const corners: Point[] = [];
@@ -183,8 +203,8 @@ export function planFewestOver(
   let stoppedBy: FewestPlan["stoppedBy"] = "time-limit";
   const pinnedIndex = pinned.map((p) => candidateKeys.get(key(p))!).filter((i) => i !== undefined);
   // Rounds of set cover and certificate until the room is covered, time is up or nothing improves.
-  function coverRounds(timeLeft = searchSecondsLeft) {
-    while (timeLeft() > 0) {
+  function coverRounds(maxRounds: number, timeLeft = searchSecondsLeft) {
+    for (let round = 0; round < maxRounds && timeLeft() > 0; round++) {
       rounds++;
       const answer = solveBinaryProgram({
         sense: "minimise",
@@ -192,6 +212,7 @@ export function planFewestOver(
         atLeast: seenBy.map((items) => ({ items, need: Math.min(demand, items.length) })),
         fixed: pinnedIndex,
         seconds: timeLeft(),
+        nodes: WORK_LIMITS.solverNodes,
       });
       if (answer.status === "infeasible" || (answer.status === "stopped" && answer.chosen.length === 0)) break;
       const posts = answer.chosen.map((j) => candidates[j]);
@@ -247,22 +268,28 @@ export function planFewestOver(
         weight: Math.max(0, demand - seenByPinned),
       };
     });
-    return independentWitnessBound(boundWitnesses, { scale, pinned: pinned.length, seconds: Math.max(0.3, Math.min(3, secondsLeft() / 2)) });
+    return independentWitnessBound(boundWitnesses, {
+      scale,
+      pinned: pinned.length,
+      seconds: Math.max(0.3, secondsLeft()),
+      maxWitnesses: WORK_LIMITS.packingWitnesses,
+      nodes: WORK_LIMITS.solverNodes,
+    });
   }
 
-  coverRounds();
+  coverRounds(WORK_LIMITS.firstRounds);
   let proof = lowerBound();
   // Anytime improvement while the bound and the plan disagree: more candidate posts, at the far
   // ends of the witnesses' shadow edges (where the faces of their visibility arrangement meet the
   // walls), then at the middle of every region edge; each time the witnesses grow as needed.
-  for (let step = 1; step <= 2 && best && proof.bound < best.posts.length && searchSecondsLeft() > 0.1; step++) {
+  for (let step = 1; step <= 2 && best && proof.bound < best.posts.length && searchSecondsLeft() > 0; step++) {
     for (const w of [...witnesses]) {
       for (let i = 0; i < w.ring.length; i++) {
         const a = w.ring[i], b = w.ring[(i + 1) % w.ring.length];
         addCandidate(step === 1 ? a : [(a[0] + b[0]) / 2, (a[1] + b[1]) / 2]);
       }
     }
-    coverRounds();
+    coverRounds(WORK_LIMITS.laterRounds);
     const again = lowerBound();
     if (again.bound > proof.bound) proof = again;
   }
@@ -270,13 +297,17 @@ export function planFewestOver(
   let boundMethod: FewestPlan["boundMethod"] = "independent witnesses";
   // Tozoni et al.'s step when they still disagree: a post in each cell the bound chose is a new
   // candidate; if those posts see the room the plan meets the bound, else their gaps add witnesses.
-  for (let round = 0; round < 6 && best && proof.bound < best.posts.length && demand === 1 && pinned.length === 0 && secondsLeft() > 0.3; round++) {
+  for (let round = 0; round < WORK_LIMITS.cellRounds && best && proof.bound < best.posts.length && demand === 1 && pinned.length === 0 && secondsLeft() > 0; round++) {
     const regionAt = (p: Point, ring: Ring): Region => (range ? clipToSightRange(ring, p, range, "circumscribed") : [[ring]]);
     const packed = new Set(proof.witnesses.map(key));
     const first = proof.witnesses.map((p) => ({ point: p, ring: sight(p)! })).filter((w) => w.ring);
     const rest = witnesses.filter((w) => !packed.has(key(w.point))).sort((a, b) => Math.abs(ringArea(a.ring)) - Math.abs(ringArea(b.ring)));
     const ordered = [...first, ...rest];
-    const dual = arrangementBound(room, ordered.map((w) => regionAt(w.point, w.ring)), secondsLeft() * 0.6);
+    const dual = arrangementBound(room, ordered.map((w) => regionAt(w.point, w.ring)), {
+      seconds: secondsLeft(),
+      clips: WORK_LIMITS.cellClips,
+      nodes: WORK_LIMITS.solverNodes,
+    });
     if (dual.bound > proof.bound) {
       proof = { bound: dual.bound, witnesses: ordered.slice(0, dual.witnesses).map((w) => w.point) };
       boundMethod = "witness cells";
@@ -285,8 +316,7 @@ export function planFewestOver(
     const before = candidates.length;
     for (const p of dual.posts) addCandidate(p);
     if (candidates.length === before) break;
-    const spendUntil = performance.now() + 500 * secondsLeft();
-    coverRounds(() => Math.max(0, (spendUntil - performance.now()) / 1000));
+    coverRounds(WORK_LIMITS.laterRounds, secondsLeft);
   }
 
   const chosen = best ?? lastTry;

@@ -15,7 +15,7 @@ async function loadSolver(): Promise<HighsSolver> {
 const highs: HighsSolver = await loadSolver();
 
 export interface BinaryAnswer {
-  /** "optimal", "stopped" (time limit, best found so far) or "infeasible". */
+  /** "optimal", "stopped" (node or time limit, best found so far) or "infeasible". */
   status: "optimal" | "stopped" | "infeasible";
   /** Indices of the variables set to 1 (empty when infeasible or nothing found in time). */
   chosen: number[];
@@ -31,7 +31,10 @@ export function solveBinaryProgram(problem: {
   atLeast?: { items: number[]; need: number }[];
   atMostOne?: number[][];
   fixed?: number[];
+  /** Wall-clock safety net; `nodes` is the deterministic limit that normally ends a hard search. */
   seconds: number;
+  /** Branch-and-bound nodes HiGHS may explore (mip_max_nodes): the same answer on any machine. */
+  nodes?: number;
 }): BinaryAnswer {
   const n = problem.weights.length;
   if (n === 0) return { status: "optimal", chosen: [] };
@@ -55,7 +58,9 @@ export function solveBinaryProgram(problem: {
   lines.push("End");
   let answer: HighsAnswer;
   try {
-    answer = highs.solve(lines.join("\n"), { time_limit: Math.max(0.05, problem.seconds), output_flag: false, mip_rel_gap: 0 });
+    const options: Record<string, unknown> = { time_limit: Math.max(0.05, problem.seconds), output_flag: false, mip_rel_gap: 0 };
+    if (problem.nodes !== undefined) options.mip_max_nodes = problem.nodes;
+    answer = highs.solve(lines.join("\n"), options);
   } catch (error) {
     // An out-of-memory WebAssembly instance cannot recover; report it as the solver's failure.
     throw new Error(`the integer program solver failed: ${(error as Error).message}`);

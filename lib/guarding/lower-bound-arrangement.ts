@@ -45,8 +45,16 @@ function bounds(paths: IntPoint[][]) {
  * or 0 when not even the integer program could be solved to optimality in time; with a point in
  * each chosen cell, which the planner tries as posts.
  */
-export function arrangementBound(room: Room, regions: Region[], seconds: number): { bound: number; witnesses: number; posts: Point[] } {
-  const stopAt = performance.now() + 1000 * seconds;
+export function arrangementBound(
+  room: Room,
+  regions: Region[],
+  limits: { seconds: number; clips?: number; nodes?: number },
+): { bound: number; witnesses: number; posts: Point[] } {
+  // The overlay stops before the witness whose cells would pass `clips` boolean operations (a count,
+  // so the same on any machine); the clock is only a safety net.
+  const stopAt = performance.now() + 1000 * limits.seconds;
+  const maxClips = limits.clips ?? Infinity;
+  let clips = 0;
   let size = 1;
   for (const ring of [room.outline, ...room.obstacles]) for (const [x, y] of ring) size = Math.max(size, Math.abs(x), Math.abs(y));
   const scale = gridScale(size);
@@ -59,7 +67,7 @@ export function arrangementBound(room: Room, regions: Region[], seconds: number)
     const next: Cell[] = [];
     let finished = true;
     for (const cell of cells) {
-      if (performance.now() > stopAt) {
+      if (clips >= maxClips || performance.now() > stopAt) {
         finished = false;
         break;
       }
@@ -67,6 +75,7 @@ export function arrangementBound(room: Room, regions: Region[], seconds: number)
         next.push(cell);
         continue;
       }
+      clips++;
       const inside = clipPaths("intersection", cell.paths, grown);
       if (inside.length === 0) {
         next.push(cell);
@@ -98,6 +107,7 @@ export function arrangementBound(room: Room, regions: Region[], seconds: number)
     weights: maximal.map(() => 1),
     atLeast: holding.map((items) => ({ items, need: 1 })),
     seconds: Math.max(0.1, (stopAt - performance.now()) / 1000 + 0.5),
+    nodes: limits.nodes,
   });
   // Only a proven optimum is a bound; an unfinished search only gives an upper value.
   const posts = answer.chosen.map((j) => pointInside(maximalCells[j].paths.map((path) => path.map((p) => [p.X / scale, p.Y / scale] as Point))));

@@ -119,20 +119,22 @@ export interface LowerBound {
  */
 export function independentWitnessBound(
   witnesses: BoundWitness[],
-  options: { scale: number; pinned: number; seconds: number },
+  options: { scale: number; pinned: number; seconds: number; maxWitnesses?: number; nodes?: number },
 ): LowerBound {
-  // Smallest regions first: they pack best, and if time runs short the pool is cut after them.
+  // Smallest regions first: they pack best, and the pool is cut after the first maxWitnesses of
+  // them (a count, so the bound is the same on any machine; the clock is only a safety net).
   const sized = witnesses
     .filter((w) => w.weight > 0 && w.region.length > 0)
     .map((w) => ({ w, area: w.region.reduce((sum, polygon) => sum + Math.abs(ringArea(polygon[0])), 0) }))
     .sort((a, b) => a.area - b.area);
   const margin = APART_MARGIN * options.scale;
   const stopAt = performance.now() + 500 * options.seconds;
+  const maxWitnesses = options.maxWitnesses ?? Infinity;
   const useful: BoundWitness[] = [];
   const shapes: Shape[] = [];
   const conflicts: number[][] = [];
   for (const { w } of sized) {
-    if (performance.now() > stopAt) break;
+    if (useful.length >= maxWitnesses || performance.now() > stopAt) break;
     const shape = shapeOf(w.region);
     const i = useful.length;
     for (let j = 0; j < i; j++) if (regionsMeet(shapes[j], shape, margin)) conflicts.push([j, i]);
@@ -144,6 +146,7 @@ export function independentWitnessBound(
     weights: useful.map((w) => w.weight),
     atMostOne: conflicts,
     seconds: Math.max(0.1, (stopAt - performance.now()) / 1000 + options.seconds / 2),
+    nodes: options.nodes,
   });
   // Independence is re-checked, so even an unfinished solver answer stays a proof.
   const clash = new Set(conflicts.map(([a, b]) => a * useful.length + b));

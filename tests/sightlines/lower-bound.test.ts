@@ -34,7 +34,7 @@ describe("lower bounds never exceed a known minimum", () => {
       const witnesses = witnessesOf(room, 40);
       const packing = independentWitnessBound(witnesses, { scale: 20, pinned: 0, seconds: 2 });
       expect(packing.bound).toBeLessThanOrEqual(minimum);
-      const cells = arrangementBound(room, witnesses.map((w) => w.region), 20);
+      const cells = arrangementBound(room, witnesses.map((w) => w.region), { seconds: 20 });
       expect(cells.witnesses).toBe(witnesses.length);
       expect(cells.bound).toBe(minimum);
     });
