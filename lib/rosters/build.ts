@@ -4,9 +4,9 @@ import type { Kysely } from "kysely";
 import type { Database } from "@/db/schema";
 import { approvedPostsForSite } from "@/db/queries/post-plans";
 import { approvedTimeOff, guardsOfSite, replaceDraft, siteById } from "@/db/queries/rosters";
-import { buildRoster } from "@/lib/scheduling/engine";
 import type { Scenario } from "@/lib/scheduling/scenario";
 import { addLocalDays } from "@/lib/scheduling/time";
+import { buildRosterOffThread } from "./engine-thread";
 import { assembleScenario, ROSTER_DAYS, type PostRow } from "./scenario";
 import { storedRoster, storedTotals, storedViolations } from "./stored";
 
@@ -65,7 +65,11 @@ export async function buildDraftRoster(db: Kysely<Database>, request: BuildReque
   await progress(0.05, "reading posts, guards and time off");
   const { scenario, guardNames } = await scenarioForWeek(db, request.siteId, request.startsOn);
   await progress(0.15, `staffing ${scenario.posts.length} posts with ${scenario.guards.length} guards`);
-  const result = await buildRoster(scenario);
+  // The engine computes for seconds: in its own thread, so the server keeps answering meanwhile,
+  // and the job's progress moves every few seconds (a job without progress counts as stale).
+  const result = await buildRosterOffThread(scenario, {
+    onWorking: (seconds) => progress(Math.min(0.85, 0.15 + seconds / 60), `staffing ${scenario.posts.length} posts with ${scenario.guards.length} guards (${seconds} s)`),
+  });
   await progress(0.9, "storing the draft");
   const stored = storedRoster(result.roster);
   const roster = await db.transaction().execute((trx) =>
