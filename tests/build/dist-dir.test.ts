@@ -11,7 +11,7 @@ const ROOT = process.cwd();
 
 // A fresh Node.js process per question: Node caches an imported next.config.mjs for good.
 function distDirOf(phase: string, distDirVariable: string | undefined): string {
-  const env: Record<string, string | undefined> = { ...process.env, NEXT_TELEMETRY_DISABLED: "1" };
+  const env: NodeJS.ProcessEnv & { SIGHTWARD_DIST_DIR?: string } = { ...process.env, NEXT_TELEMETRY_DISABLED: "1" };
   delete env.SIGHTWARD_DIST_DIR;
   if (distDirVariable !== undefined) env.SIGHTWARD_DIST_DIR = distDirVariable;
   const code = `const configModule = await import("next/dist/server/config.js");
