@@ -7,7 +7,7 @@
 // Ties in y are broken by x (isAbove), every sign comes from exact predicates, and collinear
 // vertices stay corners of strictly positive triangles: n + 2h - 2 triangles in all.
 import type { Point, Room, Triangulation } from "./types";
-import { isAbove, orient, orientXY } from "./predicates";
+import { orientXY } from "./predicates";
 import { SweepStatus, type StatusNode } from "./sweep-status";
 
 const enum Corner {
@@ -24,6 +24,54 @@ interface RoomGraph {
   points: Point[];
   next: Int32Array;
   prev: Int32Array;
+  /** Coordinates as flat arrays (filled by roomGraph): the hot loops read these, not points. */
+  xs?: Float64Array;
+  ys?: Float64Array;
+}
+
+/** The room graph with its flat coordinates, filling them in when a caller built it without. */
+interface FlatGraph {
+  points: Point[];
+  next: Int32Array;
+  prev: Int32Array;
+  xs: Float64Array;
+  ys: Float64Array;
+}
+
+function flatGraph(graph: RoomGraph): FlatGraph {
+  if (graph.xs !== undefined && graph.ys !== undefined) return graph as FlatGraph;
+  const n = graph.points.length;
+  const xs = new Float64Array(n);
+  const ys = new Float64Array(n);
+  for (let v = 0; v < n; v++) {
+    xs[v] = graph.points[v][0];
+    ys[v] = graph.points[v][1];
+  }
+  return { points: graph.points, next: graph.next, prev: graph.prev, xs, ys };
+}
+
+// Shewchuk's first error bound for orient2d (1997), as robust-predicates uses it: a float
+// determinant at least this far from zero has the exact sign.
+const EPSILON = 1.1102230246251565e-16;
+const ORIENT_ERROR_BOUND = (3 + 16 * EPSILON) * EPSILON;
+
+/**
+ * orient (predicates.ts) of corners a, b, c read from flat arrays, with the same floating-point
+ * filter robust-predicates applies first, here inlined so the common case costs no call; only
+ * near-zero determinants (collinear corners) go to the exact adaptive test.
+ */
+function orientAt(xs: Float64Array, ys: Float64Array, a: number, b: number, c: number): number {
+  const ax = xs[a];
+  const ay = ys[a];
+  const bx = xs[b];
+  const by = ys[b];
+  const cx = xs[c];
+  const cy = ys[c];
+  const detLeft = (ay - cy) * (bx - cx);
+  const detRight = (ax - cx) * (by - cy);
+  const det = detLeft - detRight;
+  if (Math.abs(det) >= ORIENT_ERROR_BOUND * Math.abs(detLeft + detRight)) return -det;
+  return orientXY(ax, ay, bx, by, cx, cy);
 }
 
 function roomGraph(room: Room): RoomGraph {
@@ -32,17 +80,22 @@ function roomGraph(room: Room): RoomGraph {
   const points: Point[] = new Array(n);
   const next = new Int32Array(n);
   const prev = new Int32Array(n);
+  const xs = new Float64Array(n);
+  const ys = new Float64Array(n);
   let offset = 0;
   for (const ring of rings) {
     const m = ring.length;
     for (let i = 0; i < m; i++) {
-      points[offset + i] = ring[i];
-      next[offset + i] = offset + ((i + 1) % m);
-      prev[offset + i] = offset + ((i - 1 + m) % m);
+      const p = ring[i];
+      points[offset + i] = p;
+      xs[offset + i] = p[0];
+      ys[offset + i] = p[1];
+      next[offset + i] = i + 1 === m ? offset : offset + i + 1;
+      prev[offset + i] = i === 0 ? offset + m - 1 : offset + i - 1;
     }
     offset += m;
   }
-  return { points, next, prev };
+  return { points, next, prev, xs, ys };
 }
 
 /**
@@ -51,16 +104,19 @@ function roomGraph(room: Room): RoomGraph {
  * in order; every triangle is counter-clockwise with strictly positive area.
  */
 export function triangulate(room: Room): Triangulation {
-  const graph = roomGraph(room);
-  const diagonals = monotoneDiagonals(graph);
-  const pieces = monotonePieces(graph, diagonals);
+  const graph = flatGraph(roomGraph(room));
+  const diagonals = sweepDiagonals(graph);
   const triangles: [number, number, number][] = [];
-  // One scratch buffer for all pieces: allocating per piece dominated small rooms.
-  let longest = 0;
-  for (const piece of pieces) if (piece.length > longest) longest = piece.length;
-  const scratch = { sorted: new Int32Array(longest), chain: new Uint8Array(longest) };
-  for (const piece of pieces) triangulateMonotonePiece(graph.points, piece, triangles, scratch);
+  walkPieces(graph, diagonals, (corners, start, m, scratch) =>
+    triangulatePieceAt(graph.xs, graph.ys, corners, start, m, triangles, scratch),
+  );
   return { points: graph.points, triangles };
+}
+
+/** Diagonals as a flat list: corners 2i and 2i + 1 of the list are the ends of diagonal i. */
+interface DiagonalList {
+  ends: Int32Array;
+  count: number;
 }
 
 /**
@@ -69,36 +125,39 @@ export function triangulate(room: Room): Triangulation {
  * the lowest corner above the sweep line that sees it horizontally.
  */
 export function monotoneDiagonals(graph: RoomGraph): [number, number][] {
-  const { points, next, prev } = graph;
-  const n = points.length;
-  const xs = new Float64Array(n);
-  const ys = new Float64Array(n);
-  for (let v = 0; v < n; v++) {
-    xs[v] = points[v][0];
-    ys[v] = points[v][1];
-  }
+  const { ends, count } = sweepDiagonals(flatGraph(graph));
+  const out: [number, number][] = new Array(count);
+  for (let d = 0; d < count; d++) out[d] = [ends[2 * d], ends[2 * d + 1]];
+  return out;
+}
+
+function sweepDiagonals(graph: FlatGraph): DiagonalList {
+  const { next, prev, xs, ys } = graph;
+  const n = xs.length;
   const order = sweepOrder(xs, ys);
   const kind = new Uint8Array(n);
   for (let v = 0; v < n; v++) {
-    const prevAbove = isAbove(points[prev[v]], points[v]);
-    const nextAbove = isAbove(points[next[v]], points[v]);
-    const convex = orient(points[prev[v]], points[v], points[next[v]]) > 0;
-    if (!prevAbove && !nextAbove) kind[v] = convex ? Corner.Start : Corner.Split;
-    else if (prevAbove && nextAbove) kind[v] = convex ? Corner.End : Corner.Merge;
-    else kind[v] = prevAbove ? Corner.RegularFloorRight : Corner.RegularFloorLeft;
+    const p = prev[v];
+    const q = next[v];
+    const prevAbove = before(xs, ys, p, v);
+    const nextAbove = before(xs, ys, q, v);
+    if (prevAbove === nextAbove) {
+      const convex = orientAt(xs, ys, p, v, q) > 0;
+      if (!prevAbove) kind[v] = convex ? Corner.Start : Corner.Split;
+      else kind[v] = convex ? Corner.End : Corner.Merge;
+    } else kind[v] = prevAbove ? Corner.RegularFloorRight : Corner.RegularFloorLeft;
   }
 
   // Wall w runs from corner w to next[w]; the status holds such walls, keyed by their first corner.
   const status = new SweepStatus<number>();
   const nodeOf: (StatusNode<number> | null)[] = new Array(n).fill(null);
   const helper = new Int32Array(n).fill(-1);
-  const diagonals: [number, number][] = [];
+  // At most one diagonal per split or merge corner and one per end or regular corner below a merge.
+  const ends = new Int32Array(2 * n);
+  let count = 0;
   // One comparison function for the whole sweep (no closure per corner): is this wall left of v?
   // Coordinates from flat typed arrays: the status search is memory-bound on big rooms.
-  const leftOf = (wall: number, v: number) => {
-    const w = next[wall];
-    return orientXY(xs[wall], ys[wall], xs[w], ys[w], xs[v], ys[v]) > 0;
-  };
+  const leftOf = (wall: number, v: number) => orientAt(xs, ys, wall, next[wall], v) > 0;
   const wallLeftOf = (v: number): number => {
     const node = status.lastWhere(leftOf, v);
     if (node === null) throw new Error(`triangulate: no wall left of corner ${v}; is the room valid and normalised?`);
@@ -112,8 +171,13 @@ export function monotoneDiagonals(graph: RoomGraph): [number, number][] {
     status.remove(nodeOf[wall]!);
     nodeOf[wall] = null;
   };
+  const join = (a: number, b: number) => {
+    ends[2 * count] = a;
+    ends[2 * count + 1] = b;
+    count++;
+  };
   const joinIfMerge = (v: number, wall: number) => {
-    if (kind[helper[wall]] === Corner.Merge) diagonals.push([v, helper[wall]]);
+    if (kind[helper[wall]] === Corner.Merge) join(v, helper[wall]);
   };
 
   for (let k = 0; k < n; k++) {
@@ -128,7 +192,7 @@ export function monotoneDiagonals(graph: RoomGraph): [number, number][] {
         break;
       case Corner.Split: {
         const left = wallLeftOf(v);
-        diagonals.push([v, helper[left]]);
+        join(v, helper[left]);
         helper[left] = v;
         insertWall(v);
         break;
@@ -154,12 +218,7 @@ export function monotoneDiagonals(graph: RoomGraph): [number, number][] {
       }
     }
   }
-  return diagonals;
-}
-
-/** 0 for directions from the centre in the upper half-plane (with +x), 1 for the lower (with -x). */
-function halfPlane(centre: Point, p: Point): number {
-  return p[1] > centre[1] || (p[1] === centre[1] && p[0] > centre[0]) ? 0 : 1;
+  return { ends, count };
 }
 
 /** Whether corner a comes before corner b in the top-down sweep (isAbove on coordinate arrays). */
@@ -208,111 +267,148 @@ export function sweepOrder(xs: Float64Array, ys: Float64Array): Int32Array {
   return a;
 }
 
-/** Half-plane then exact orientation: sorts directions around a centre counter-clockwise from +x. */
-function angularCompare(centre: Point, a: Point, b: Point): number {
-  const ha = halfPlane(centre, a);
-  const hb = halfPlane(centre, b);
-  if (ha !== hb) return ha - hb;
-  return -orient(centre, a, b);
+/** Half-plane then exact orientation: whether direction centre->a comes before centre->b counter-clockwise from +x. */
+function angularBefore(xs: Float64Array, ys: Float64Array, centre: number, a: number, b: number): boolean {
+  const cx = xs[centre];
+  const cy = ys[centre];
+  const ha = ys[a] > cy || (ys[a] === cy && xs[a] > cx) ? 0 : 1;
+  const hb = ys[b] > cy || (ys[b] === cy && xs[b] > cx) ? 0 : 1;
+  if (ha !== hb) return ha < hb;
+  return orientAt(xs, ys, centre, a, b) > 0;
+}
+
+/** Scratch buffers of the piece triangulation, sized for the largest piece. */
+interface PieceScratch {
+  sorted: Int32Array;
+  chain: Uint8Array;
+  stack: Int32Array;
 }
 
 /**
  * The faces cut out by walls and diagonals, each a counter-clockwise cycle of corners: the
- * y-monotone pieces. Built from the planar graph by following, at each corner, the next edge
- * clockwise from the one we arrived by (which keeps the face on the left).
+ * y-monotone pieces, handed to `visit` one at a time as corners[start .. start + m). Built by
+ * following, at each corner, the next edge clockwise from the one we arrived by (which keeps the
+ * face on the left). Only corners with diagonals need their edges in angular order; at any other
+ * corner the walk simply goes on along the ring.
  */
-export function monotonePieces(graph: RoomGraph, diagonals: [number, number][]): number[][] {
-  const { points, next } = graph;
-  const n = points.length;
-  const degree = new Int32Array(n + 1);
-  for (let v = 0; v < n; v++) {
-    degree[v]++;
-    degree[next[v]]++;
-  }
-  for (let d = 0; d < diagonals.length; d++) {
-    degree[diagonals[d][0]]++;
-    degree[diagonals[d][1]]++;
-  }
+function walkPieces(
+  graph: FlatGraph,
+  diagonals: DiagonalList,
+  visit: (corners: Int32Array, start: number, m: number, scratch: PieceScratch) => void,
+): void {
+  const { next, prev, xs, ys } = graph;
+  const n = xs.length;
+  const { ends, count } = diagonals;
+  // Around each corner with diagonals: its ring neighbours and diagonal ends, counter-clockwise.
   const offset = new Int32Array(n + 1);
-  for (let v = 0; v < n; v++) offset[v + 1] = offset[v] + degree[v];
-  const fill = offset.slice(0, n);
-  const target = new Int32Array(offset[n]);
-  const add = (a: number, b: number) => {
-    target[fill[a]++] = b;
-    target[fill[b]++] = a;
-  };
-  for (let v = 0; v < n; v++) add(v, next[v]);
-  for (let d = 0; d < diagonals.length; d++) add(diagonals[d][0], diagonals[d][1]);
-
-  // Sort each corner's neighbours counter-clockwise.
-  const source = new Int32Array(offset[n]);
+  for (let e = 0; e < 2 * count; e++) offset[ends[e] + 1]++;
+  for (let v = 0; v < n; v++) offset[v + 1] += offset[v] + (offset[v + 1] > 0 ? 2 : 0);
+  const around = new Int32Array(offset[n]);
+  const fill = new Int32Array(n);
+  for (let d = 0; d < count; d++) {
+    const a = ends[2 * d];
+    const b = ends[2 * d + 1];
+    if (fill[a] === 0) fill[a] = 2;
+    if (fill[b] === 0) fill[b] = 2;
+    around[offset[a] + fill[a]++] = b;
+    around[offset[b] + fill[b]++] = a;
+  }
   for (let v = 0; v < n; v++) {
     const from = offset[v];
     const to = offset[v + 1];
-    source.fill(v, from, to);
-    if (to - from <= 2) {
-      // Two edges: the walk takes "the other one" either way; no order needed.
-    } else if (to - from <= 12) {
-      // Insertion sort: corners rarely have more than a handful of edges.
-      const centre = points[v];
+    if (from === to) continue;
+    around[from] = next[v];
+    around[from + 1] = prev[v];
+    // Insertion sort: corners rarely have more than a handful of edges; a fan gets an O(k log k) sort.
+    if (to - from <= 16) {
       for (let i = from + 1; i < to; i++) {
-        const w = target[i];
+        const w = around[i];
         let j = i - 1;
-        while (j >= from && angularCompare(centre, points[target[j]], points[w]) > 0) {
-          target[j + 1] = target[j];
+        while (j >= from && angularBefore(xs, ys, v, w, around[j])) {
+          around[j + 1] = around[j];
           j--;
         }
-        target[j + 1] = w;
+        around[j + 1] = w;
       }
     } else {
-      const around = Array.from(target.subarray(from, to)).sort((a, b) => angularCompare(points[v], points[a], points[b]));
-      target.set(around, from);
+      const sorted = Array.from(around.subarray(from, to)).sort((a, b) =>
+        angularBefore(xs, ys, v, a, b) ? -1 : angularBefore(xs, ys, v, b, a) ? 1 : 0,
+      );
+      around.set(sorted, from);
     }
   }
-  // Twin of each half-edge (the same edge walked the other way): a scan of the far corner's few
-  // neighbours; corners with many (a fan of diagonals) get a lookup table so this stays linear.
-  const twin = new Int32Array(offset[n]);
-  const wide = new Map<number, Map<number, number>>();
-  const slotOf = (v: number, u: number): number => {
-    const from = offset[v];
-    const to = offset[v + 1];
-    if (to - from <= 16) {
-      for (let k = from; k < to; k++) if (target[k] === u) return k;
-      throw new Error("triangulate: an edge without its twin; is the room valid?");
-    }
-    let table = wide.get(v);
-    if (table === undefined) {
-      table = new Map();
-      for (let k = from; k < to; k++) table.set(target[k], k);
-      wide.set(v, table);
-    }
-    return table.get(u)!;
-  };
-  for (let e = 0; e < offset[n]; e++) twin[e] = slotOf(target[e], source[e]);
-
-  const visited = new Uint8Array(offset[n]);
-  // The far side of every wall is outside the floor: mark half-edges running against ring order.
-  for (let e = 0; e < offset[n]; e++) if (next[target[e]] === source[e]) visited[e] = 1;
-  const pieces: number[][] = [];
-  for (let v = 0; v < n; v++) {
-    for (let k = offset[v]; k < offset[v + 1]; k++) {
-      if (visited[k]) continue;
-      const piece: number[] = [];
-      let from = v;
-      let edge = k;
-      while (!visited[edge]) {
-        visited[edge] = 1;
-        piece.push(from);
-        const to = target[edge];
-        // Next edge: the neighbour of `to` just clockwise from `from`.
-        const back = twin[edge];
-        const nextEdge = back === offset[to] ? offset[to + 1] - 1 : back - 1;
-        from = to;
-        edge = nextEdge;
+  // Walked half-edges: ring walls by their first corner, diagonal half-edges by their slot.
+  const wallDone = new Uint8Array(n);
+  const slotDone = new Uint8Array(offset[n]);
+  // Each wall is walked once and each diagonal twice, so the pieces hold n + 2 * count corners.
+  const corners = new Int32Array(n + 2 * count);
+  let longest = 3;
+  const starts: number[] = [];
+  let used = 0;
+  // Walk the face to the left of half-edge from -> to (slot: its place around `from`, or -1 for a wall).
+  const walk = (first: number, firstTo: number, firstSlot: number) => {
+    const start = used;
+    let from = first;
+    let to = firstTo;
+    let slot = firstSlot;
+    for (;;) {
+      if (slot < 0) {
+        if (wallDone[from]) break;
+        wallDone[from] = 1;
+      } else {
+        if (slotDone[slot]) break;
+        slotDone[slot] = 1;
       }
-      pieces.push(piece);
+      corners[used++] = from;
+      // Next edge: the neighbour of `to` just clockwise from `from`.
+      const lo = offset[to];
+      const hi = offset[to + 1];
+      if (lo === hi) {
+        from = to;
+        to = next[from];
+        slot = -1;
+      } else {
+        let k = lo;
+        while (around[k] !== from) {
+          k++;
+          if (k === hi) throw new Error("triangulate: an edge without its twin; is the room valid?");
+        }
+        k = k === lo ? hi - 1 : k - 1;
+        const w = around[k];
+        from = to;
+        to = w;
+        slot = w === next[from] ? -1 : k;
+      }
+    }
+    const m = used - start;
+    if (m > longest) longest = m;
+    starts.push(start, m);
+  };
+  for (let v = 0; v < n; v++) {
+    if (!wallDone[v]) walk(v, next[v], -1);
+    for (let k = offset[v]; k < offset[v + 1]; k++) {
+      const w = around[k];
+      if (!slotDone[k] && w !== next[v] && w !== prev[v]) walk(v, w, k);
     }
   }
+  const scratch: PieceScratch = { sorted: new Int32Array(longest), chain: new Uint8Array(longest), stack: new Int32Array(longest) };
+  for (let i = 0; i < starts.length; i += 2) visit(corners, starts[i], starts[i + 1], scratch);
+}
+
+/**
+ * The faces cut out by walls and diagonals, each a counter-clockwise cycle of corners: the
+ * y-monotone pieces (see walkPieces).
+ */
+export function monotonePieces(graph: RoomGraph, diagonals: [number, number][]): number[][] {
+  const ends = new Int32Array(2 * diagonals.length);
+  for (let d = 0; d < diagonals.length; d++) {
+    ends[2 * d] = diagonals[d][0];
+    ends[2 * d + 1] = diagonals[d][1];
+  }
+  const pieces: number[][] = [];
+  walkPieces(flatGraph(graph), { ends, count: diagonals.length }, (corners, start, m) => {
+    pieces.push(Array.from(corners.subarray(start, start + m)));
+  });
   return pieces;
 }
 
@@ -333,89 +429,127 @@ export function triangulateMonotonePiece(
 ): void {
   const m = piece.length;
   if (m < 3) throw new Error(`triangulate: a piece with ${m} corners; is the room valid?`);
+  // The piece's own corners as flat arrays, then back to the caller's corner numbers.
+  const xs = new Float64Array(m);
+  const ys = new Float64Array(m);
+  const local = new Int32Array(m);
+  for (let i = 0; i < m; i++) {
+    xs[i] = points[piece[i]][0];
+    ys[i] = points[piece[i]][1];
+    local[i] = i;
+  }
+  const mine: [number, number, number][] = [];
+  const buffers: PieceScratch = {
+    sorted: scratch && scratch.sorted.length >= m ? scratch.sorted : new Int32Array(m),
+    chain: scratch && scratch.chain.length >= m ? scratch.chain : new Uint8Array(m),
+    stack: new Int32Array(m),
+  };
+  triangulatePieceAt(xs, ys, local, 0, m, mine, buffers);
+  for (const [a, b, c] of mine) out.push([piece[a], piece[b], piece[c]]);
+}
+
+/** triangulateMonotonePiece on the piece corners[start .. start + m), coordinates from flat arrays. */
+function triangulatePieceAt(
+  xs: Float64Array,
+  ys: Float64Array,
+  corners: Int32Array,
+  start: number,
+  m: number,
+  out: [number, number, number][],
+  scratch: PieceScratch,
+): void {
+  if (m < 3) throw new Error(`triangulate: a piece with ${m} corners; is the room valid?`);
   if (m === 3) {
-    pushTriangle(points, out, piece[0], piece[1], piece[2]);
+    pushTriangle(xs, ys, out, corners[start], corners[start + 1], corners[start + 2]);
     return;
   }
   let top = 0;
   let bottom = 0;
   for (let i = 1; i < m; i++) {
-    if (isAbove(points[piece[i]], points[piece[top]])) top = i;
-    if (isAbove(points[piece[bottom]], points[piece[i]])) bottom = i;
+    const c = corners[start + i];
+    if (before(xs, ys, c, corners[start + top])) top = i;
+    if (before(xs, ys, corners[start + bottom], c)) bottom = i;
   }
   // Counter-clockwise from the top runs down the left chain; from the bottom, up the right chain.
-  const sorted = scratch && scratch.sorted.length >= m ? scratch.sorted : new Int32Array(m);
-  const chain = scratch && scratch.chain.length >= m ? scratch.chain : new Uint8Array(m);
+  const { sorted, chain, stack } = scratch;
   let l = top;
-  let r = (top - 1 + m) % m;
-  sorted[0] = piece[top];
+  let r = top === 0 ? m - 1 : top - 1;
+  sorted[0] = corners[start + top];
   chain[0] = LEFT | RIGHT;
   for (let k = 1; k < m; k++) {
-    const nl = (l + 1) % m;
+    const nl = l + 1 === m ? 0 : l + 1;
     // Merge the two descending chains; the bottom corner closes both.
-    if (nl !== bottom && (r === bottom || isAbove(points[piece[nl]], points[piece[r]]))) {
-      sorted[k] = piece[nl];
+    if (nl !== bottom && (r === bottom || before(xs, ys, corners[start + nl], corners[start + r]))) {
+      sorted[k] = corners[start + nl];
       chain[k] = LEFT;
       l = nl;
     } else if (r !== bottom) {
-      sorted[k] = piece[r];
+      sorted[k] = corners[start + r];
       chain[k] = RIGHT;
-      r = (r - 1 + m) % m;
+      r = r === 0 ? m - 1 : r - 1;
     } else {
-      sorted[k] = piece[bottom];
+      sorted[k] = corners[start + bottom];
       chain[k] = LEFT | RIGHT;
     }
   }
 
-  const stack: number[] = [0, 1];
+  stack[0] = 0;
+  stack[1] = 1;
+  let depth = 2;
   for (let j = 2; j < m - 1; j++) {
     const u = sorted[j];
-    const topIndex = stack[stack.length - 1];
-    if ((chain[j] & chain[topIndex]) === 0) {
+    const side = chain[j];
+    if ((side & chain[stack[depth - 1]]) === 0) {
       // Opposite chains: u sees every corner on the stack; fan them all from u.
-      fanFrom(points, out, u, chain[j], stack, sorted);
-      stack.length = 0;
-      stack.push(j - 1, j);
+      fanFrom(xs, ys, out, u, side, stack, depth, sorted);
+      stack[0] = j - 1;
+      stack[1] = j;
+      depth = 2;
     } else {
-      let last = stack.pop()!;
-      while (stack.length > 0) {
-        const q = sorted[stack[stack.length - 1]];
+      let last = stack[--depth];
+      while (depth > 0) {
+        const q = sorted[stack[depth - 1]];
         const p = sorted[last];
-        const positive = chain[j] === LEFT ? orient(points[q], points[p], points[u]) > 0 : orient(points[u], points[p], points[q]) > 0;
-        if (!positive) break;
-        if (chain[j] === LEFT) out.push([q, p, u]);
-        else out.push([u, p, q]);
-        last = stack.pop()!;
+        if (side === LEFT) {
+          if (!(orientAt(xs, ys, q, p, u) > 0)) break;
+          out.push([q, p, u]);
+        } else {
+          if (!(orientAt(xs, ys, u, p, q) > 0)) break;
+          out.push([u, p, q]);
+        }
+        last = stack[--depth];
       }
-      stack.push(last, j);
+      stack[depth++] = last;
+      stack[depth++] = j;
     }
   }
   // The bottom corner sees what is left on the stack.
-  const lastOnStack = stack[stack.length - 1];
-  const bottomChain = chain[lastOnStack] === LEFT ? RIGHT : LEFT;
-  fanFrom(points, out, sorted[m - 1], bottomChain, stack, sorted);
+  const bottomChain = chain[stack[depth - 1]] === LEFT ? RIGHT : LEFT;
+  fanFrom(xs, ys, out, sorted[m - 1], bottomChain, stack, depth, sorted);
 }
 
 /** Triangles from corner u (on chain `side`) to each consecutive pair of the stacked corners. */
 function fanFrom(
-  points: Point[],
+  xs: Float64Array,
+  ys: Float64Array,
   out: [number, number, number][],
   u: number,
   side: number,
-  stack: number[],
+  stack: Int32Array,
+  depth: number,
   sorted: Int32Array,
 ): void {
-  for (let i = 0; i + 1 < stack.length; i++) {
+  for (let i = 0; i + 1 < depth; i++) {
     const upper = sorted[stack[i]];
     const lower = sorted[stack[i + 1]];
-    if (side === LEFT) pushTriangle(points, out, u, lower, upper);
-    else pushTriangle(points, out, u, upper, lower);
+    if (side === LEFT) pushTriangle(xs, ys, out, u, lower, upper);
+    else pushTriangle(xs, ys, out, u, upper, lower);
   }
 }
 
 /** Keep the counter-clockwise triangle; a non-positive one means the input broke a precondition. */
-function pushTriangle(points: Point[], out: [number, number, number][], a: number, b: number, c: number): void {
-  const o = orient(points[a], points[b], points[c]);
+function pushTriangle(xs: Float64Array, ys: Float64Array, out: [number, number, number][], a: number, b: number, c: number): void {
+  const o = orientAt(xs, ys, a, b, c);
   if (!(o > 0)) {
     throw new Error(
       `triangulate: corners ${a}, ${b}, ${c} would make a ${o === 0 ? "flat" : "clockwise"} triangle; is the room valid and normalised?`,
