@@ -114,3 +114,110 @@ export class SweepStatus<T> {
     return out;
   }
 }
+
+/**
+ * The same skip list for entries that are small integers (0 .. capacity - 1, each present at most
+ * once), with its links in typed arrays: no object per entry, so a sweep over many corners makes
+ * no garbage. Levels are promoted with probability 1/4 (Pugh 1990), which halves the link arrays.
+ */
+export class IndexSweepStatus {
+  // Node id = entry + 1; id 0 is the head, and a link 0 means "none" (the head is never a successor).
+  private readonly nexts: Int32Array[] = [];
+  private readonly prevs: Int32Array[] = [];
+  private readonly heights: Uint8Array;
+  private readonly update = new Int32Array(MAX_LEVEL);
+  private level = 0;
+  private seed: number;
+  private count = 0;
+
+  constructor(
+    private readonly capacity: number,
+    seed = 0x9e3779b9,
+  ) {
+    this.heights = new Uint8Array(capacity + 1);
+    this.seed = seed >>> 0 || 1;
+  }
+
+  get size(): number {
+    return this.count;
+  }
+
+  /** Random height: 1, plus one more level with probability 1/4 each (xorshift32). */
+  private randomHeight(): number {
+    let x = this.seed;
+    x ^= x << 13;
+    x ^= x >>> 17;
+    x ^= x << 5;
+    this.seed = x >>> 0;
+    let height = 1;
+    for (let bits = this.seed; (bits & 3) === 0 && height < 16; bits >>>= 2) height++;
+    return height;
+  }
+
+  /** The last entry for which `isBefore` holds (monotone along the status), or -1 when none. */
+  lastWhere<Q>(isBefore: (entry: number, probe: Q) => boolean, probe: Q): number {
+    let x = 0;
+    for (let l = this.level - 1; l >= 0; l--) {
+      const next = this.nexts[l];
+      for (let n = next[x]; n !== 0 && isBefore(n - 1, probe); n = next[x]) x = n;
+    }
+    return x - 1;
+  }
+
+  /** Insert `entry` right after the entries for which `isBefore` holds (monotone, as in lastWhere). */
+  insert<Q>(entry: number, isBefore: (other: number, probe: Q) => boolean, probe: Q): void {
+    if (!(entry >= 0 && entry < this.capacity)) throw new RangeError(`sweep status: entry ${entry} outside 0..${this.capacity - 1}`);
+    const update = this.update;
+    let x = 0;
+    for (let l = this.level - 1; l >= 0; l--) {
+      const next = this.nexts[l];
+      for (let n = next[x]; n !== 0 && isBefore(n - 1, probe); n = next[x]) x = n;
+      update[l] = x;
+    }
+    const height = this.randomHeight();
+    while (this.level < height) {
+      if (this.nexts.length === this.level) {
+        this.nexts.push(new Int32Array(this.capacity + 1));
+        this.prevs.push(new Int32Array(this.capacity + 1));
+      }
+      update[this.level++] = 0;
+    }
+    const id = entry + 1;
+    this.heights[id] = height;
+    for (let l = 0; l < height; l++) {
+      const next = this.nexts[l];
+      const after = update[l];
+      const following = next[after];
+      next[id] = following;
+      this.prevs[l][id] = after;
+      next[after] = id;
+      if (following !== 0) this.prevs[l][following] = id;
+    }
+    this.count++;
+  }
+
+  /** Remove an entry that is in the status. */
+  remove(entry: number): void {
+    const id = entry + 1;
+    const height = this.heights[id];
+    if (height === 0) throw new RangeError(`sweep status: entry ${entry} is not in the status`);
+    for (let l = 0; l < height; l++) {
+      const next = this.nexts[l];
+      const prev = this.prevs[l];
+      const before = prev[id];
+      const after = next[id];
+      next[before] = after;
+      if (after !== 0) prev[after] = before;
+    }
+    this.heights[id] = 0;
+    this.count--;
+  }
+
+  /** All entries left to right (for tests and debugging). */
+  items(): number[] {
+    const out: number[] = [];
+    if (this.level === 0) return out;
+    for (let n = this.nexts[0][0]; n !== 0; n = this.nexts[0][n]) out.push(n - 1);
+    return out;
+  }
+}

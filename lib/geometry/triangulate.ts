@@ -8,7 +8,7 @@
 // vertices stay corners of strictly positive triangles: n + 2h - 2 triangles in all.
 import type { Point, Room, Triangulation } from "./types";
 import { orientXY } from "./predicates";
-import { SweepStatus, type StatusNode } from "./sweep-status";
+import { IndexSweepStatus } from "./sweep-status";
 
 const enum Corner {
   Start,
@@ -149,8 +149,7 @@ function sweepDiagonals(graph: FlatGraph): DiagonalList {
   }
 
   // Wall w runs from corner w to next[w]; the status holds such walls, keyed by their first corner.
-  const status = new SweepStatus<number>();
-  const nodeOf: (StatusNode<number> | null)[] = new Array(n).fill(null);
+  const status = new IndexSweepStatus(n);
   const helper = new Int32Array(n).fill(-1);
   // At most one diagonal per split or merge corner and one per end or regular corner below a merge.
   const ends = new Int32Array(2 * n);
@@ -159,18 +158,15 @@ function sweepDiagonals(graph: FlatGraph): DiagonalList {
   // Coordinates from flat typed arrays: the status search is memory-bound on big rooms.
   const leftOf = (wall: number, v: number) => orientAt(xs, ys, wall, next[wall], v) > 0;
   const wallLeftOf = (v: number): number => {
-    const node = status.lastWhere(leftOf, v);
-    if (node === null) throw new Error(`triangulate: no wall left of corner ${v}; is the room valid and normalised?`);
-    return node.item;
+    const wall = status.lastWhere(leftOf, v);
+    if (wall < 0) throw new Error(`triangulate: no wall left of corner ${v}; is the room valid and normalised?`);
+    return wall;
   };
   const insertWall = (v: number) => {
-    nodeOf[v] = status.insert(v, leftOf, v);
+    status.insert(v, leftOf, v);
     helper[v] = v;
   };
-  const removeWall = (wall: number) => {
-    status.remove(nodeOf[wall]!);
-    nodeOf[wall] = null;
-  };
+  const removeWall = (wall: number) => status.remove(wall);
   const join = (a: number, b: number) => {
     ends[2 * count] = a;
     ends[2 * count + 1] = b;

@@ -5,7 +5,7 @@
 import { describe, expect, it } from "vitest";
 import fc from "fast-check";
 import { orient, orientSign, segmentsMeet, isAbove, compareTopDown } from "@/lib/geometry/predicates";
-import { SweepStatus } from "@/lib/geometry/sweep-status";
+import { IndexSweepStatus, SweepStatus } from "@/lib/geometry/sweep-status";
 import type { Point } from "@/lib/geometry/types";
 
 const SCALE = 2n ** 80n;
@@ -91,5 +91,38 @@ describe("SweepStatus (skip list)", () => {
       }),
       { numRuns: 200, seed: 2 },
     );
+  });
+});
+
+describe("IndexSweepStatus (skip list over typed arrays)", () => {
+  it("keeps order and removals like a sorted array (the model: a plain sorted array)", () => {
+    fc.assert(
+      fc.property(fc.array(fc.tuple(fc.boolean(), fc.integer({ min: 0, max: 200 })), { maxLength: 300 }), (operations) => {
+        const status = new IndexSweepStatus(201);
+        const model: number[] = [];
+        for (const [add, value] of operations) {
+          if (add && !model.includes(value)) {
+            status.insert(value, (other, probe) => other < probe, value);
+            model.push(value);
+            model.sort((a, b) => a - b);
+          } else if (!add && model.includes(value)) {
+            status.remove(value);
+            model.splice(model.indexOf(value), 1);
+          }
+          expect(status.items()).toEqual(model);
+          expect(status.size).toBe(model.length);
+          const probe = value + 0.5;
+          const below = model.filter((v) => v < probe);
+          expect(status.lastWhere((v, p) => v < p, probe)).toBe(below.length ? below[below.length - 1] : -1);
+        }
+      }),
+      { numRuns: 200, seed: 3 },
+    );
+  });
+
+  it("refuses entries outside its capacity and removal of absent entries", () => {
+    const status = new IndexSweepStatus(4);
+    expect(() => status.insert(4, () => false, 0)).toThrow(RangeError);
+    expect(() => status.remove(2)).toThrow(RangeError);
   });
 });
