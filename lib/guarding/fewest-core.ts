@@ -12,7 +12,7 @@ import type { Point, Ring, Room, Triangulation } from "../geometry/types";
 import { createSightlines, type Sightlines } from "../geometry/visibility";
 import { clipToSightRange, discCorners } from "../geometry/visibility-range";
 import { certifyCoverage, pointInside, ringArea, roomRegion, type CoverageCertificate, type Region } from "../geometry/coverage";
-import { arrangementBound } from "./lower-bound-arrangement";
+import { createWitnessCells } from "./lower-bound-arrangement";
 import { allowedPost, checkConstraints, insideClosedRing, type ConstraintProblem, type PostConstraints } from "./constraints";
 import { independentWitnessBound, type BoundWitness } from "./lower-bound";
 import { solveBinaryProgram } from "./fewest-solver";
@@ -61,11 +61,13 @@ export const WORK_LIMITS = {
   /** Branch-and-bound nodes per integer program (HiGHS mip_max_nodes). */
   solverNodes: 20000,
   /** Witnesses offered to the independent-witness bound, smallest regions first. */
-  packingWitnesses: 2500,
+  packingWitnesses: 1500,
+  /** Nodes for the packing's integer program (weak relaxation: its nodes rarely pay; cells do better). */
+  packingNodes: 300,
   /** Boolean operations the witness-cell overlay may spend per bound. */
   cellClips: 40000,
-  /** Rounds of witness-cell bound and its posts as candidates. */
-  cellRounds: 6,
+  /** Rounds of witness-cell bound and its posts as candidates (the overlay grows each round). */
+  cellRounds: 10,
 };
 
 /** Corners of the room where the floor turns less than 180°: the hardest places to see. */
@@ -273,7 +275,7 @@ export function planFewestOver(
       pinned: pinned.length,
       seconds: Math.max(0.3, secondsLeft()),
       maxWitnesses: WORK_LIMITS.packingWitnesses,
-      nodes: WORK_LIMITS.solverNodes,
+      nodes: WORK_LIMITS.packingNodes,
     });
   }
 
@@ -290,33 +292,44 @@ export function planFewestOver(
       }
     }
     coverRounds(WORK_LIMITS.laterRounds);
-    const again = lowerBound();
-    if (again.bound > proof.bound) proof = again;
+    // Where the witness-cell bound follows (single cover, nothing pinned) it subsumes a new packing
+    // over these witnesses, and the packing is the slower of the two; elsewhere pack again.
+    if (demand === 2 || pinned.length > 0) {
+      const again = lowerBound();
+      if (again.bound > proof.bound) proof = again;
+    }
   }
   // The stronger bound (witness cells, lower-bound-arrangement.ts) when the packing falls short.
   let boundMethod: FewestPlan["boundMethod"] = "independent witnesses";
   // Tozoni et al.'s step when they still disagree: a post in each cell the bound chose is a new
   // candidate; if those posts see the room the plan meets the bound, else their gaps add witnesses.
+  // One overlay for all rounds: each round adds only the witnesses it has not seen yet.
+  const overlay = createWitnessCells(room);
+  const inOverlay: string[] = [];
+  const regionAt = (p: Point, ring: Ring): Region => (range ? clipToSightRange(ring, p, range, "circumscribed") : [[ring]]);
   for (let round = 0; round < WORK_LIMITS.cellRounds && best && proof.bound < best.posts.length && demand === 1 && pinned.length === 0 && secondsLeft() > 0; round++) {
-    const regionAt = (p: Point, ring: Ring): Region => (range ? clipToSightRange(ring, p, range, "circumscribed") : [[ring]]);
-    const packed = new Set(proof.witnesses.map(key));
-    const first = proof.witnesses.map((p) => ({ point: p, ring: sight(p)! })).filter((w) => w.ring);
-    const rest = witnesses.filter((w) => !packed.has(key(w.point))).sort((a, b) => Math.abs(ringArea(a.ring)) - Math.abs(ringArea(b.ring)));
-    const ordered = [...first, ...rest];
-    const dual = arrangementBound(room, ordered.map((w) => regionAt(w.point, w.ring)), {
-      seconds: secondsLeft(),
-      clips: WORK_LIMITS.cellClips,
-      nodes: WORK_LIMITS.solverNodes,
-    });
+    // The packing's witnesses first (they already force proof.bound posts), then small regions.
+    const added = new Set(inOverlay);
+    const first = proof.witnesses.filter((p) => !added.has(key(p))).map((p) => ({ point: p, ring: sight(p)! })).filter((w) => w.ring);
+    const firstKeys = new Set(first.map((w) => key(w.point)));
+    const rest = witnesses.filter((w) => !added.has(key(w.point)) && !firstKeys.has(key(w.point))).sort((a, b) => Math.abs(ringArea(a.ring)) - Math.abs(ringArea(b.ring)));
+    const waiting = [...first, ...rest];
+    const count = overlay.add(
+      waiting.map((w) => regionAt(w.point, w.ring)),
+      { clips: WORK_LIMITS.cellClips, stopAt: deadline },
+    );
+    for (const w of waiting.slice(0, count)) inOverlay.push(key(w.point));
+    const dual = overlay.solve({ seconds: secondsLeft() + 0.5, nodes: WORK_LIMITS.solverNodes });
     if (dual.bound > proof.bound) {
-      proof = { bound: dual.bound, witnesses: ordered.slice(0, dual.witnesses).map((w) => w.point) };
+      proof = { bound: dual.bound, witnesses: inOverlay.map((k) => k.split(",").map(Number) as Point) };
       boundMethod = "witness cells";
     }
-    if (proof.bound >= best.posts.length || dual.posts.length === 0) break;
+    if (proof.bound >= best.posts.length) break;
     const before = candidates.length;
     for (const p of dual.posts) addCandidate(p);
-    if (candidates.length === before) break;
-    coverRounds(WORK_LIMITS.laterRounds, secondsLeft);
+    const complete = count === waiting.length;
+    if (candidates.length === before && complete) break;
+    if (candidates.length > before) coverRounds(WORK_LIMITS.laterRounds, secondsLeft);
   }
 
   const chosen = best ?? lastTry;

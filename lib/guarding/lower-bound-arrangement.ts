@@ -40,9 +40,107 @@ function bounds(paths: IntPoint[][]) {
   return { minX, minY, maxX, maxY };
 }
 
+export interface WitnessCells {
+  /** Witnesses whose regions are in the overlay, in the order added. */
+  readonly witnesses: number;
+  /**
+   * Adds witnesses' regions to the overlay in order, until one would pass `clips` more boolean
+   * operations or the clock passes `stopAt` (ms); a witness cut off midway is left out whole.
+   * Returns how many were added.
+   */
+  add(regions: Region[], limits: { clips?: number; stopAt?: number }): number;
+  /** The fewest cells that see every witness added so far (0 unless solved to optimality), with a point in each. */
+  solve(limits: { seconds: number; nodes?: number }): { bound: number; witnesses: number; posts: Point[] };
+}
+
 /**
- * The fewest posts that can see the given witnesses (in the order given, as many as time allows),
- * or 0 when not even the integer program could be solved to optimality in time; with a point in
+ * An overlay that grows witness by witness, so later rounds of the planner pay only for their new
+ * witnesses (the cells of the earlier ones are kept).
+ */
+export function createWitnessCells(room: Room): WitnessCells {
+  let size = 1;
+  for (const ring of [room.outline, ...room.obstacles]) for (const [x, y] of ring) size = Math.max(size, Math.abs(x), Math.abs(y));
+  const scale = gridScale(size);
+  const roomPaths = toPaths([[room.outline, ...room.obstacles]], scale);
+  let cells: Cell[] = [{ paths: roomPaths, sees: [], ...bounds(roomPaths) }];
+  let used = 0;
+
+  function add(regions: Region[], limits: { clips?: number; stopAt?: number }): number {
+    const maxClips = limits.clips ?? Infinity;
+    const stopAt = limits.stopAt ?? Infinity;
+    let clips = 0;
+    let added = 0;
+    for (const region of regions) {
+      const k = used;
+      const grown = growPaths(toPaths(region, scale), GROW_CELLS);
+      const box = bounds(grown);
+      const next: Cell[] = [];
+      let finished = true;
+      for (const cell of cells) {
+        if (clips >= maxClips || performance.now() > stopAt) {
+          finished = false;
+          break;
+        }
+        if (cell.maxX < box.minX || cell.minX > box.maxX || cell.maxY < box.minY || cell.minY > box.maxY) {
+          next.push(cell);
+          continue;
+        }
+        clips++;
+        const inside = clipPaths("intersection", cell.paths, grown);
+        if (inside.length === 0) {
+          next.push(cell);
+          continue;
+        }
+        next.push({ paths: inside, sees: [...cell.sees, k], ...bounds(inside) });
+        const outside = clipPaths("difference", cell.paths, grown);
+        if (outside.length) next.push({ paths: outside, sees: cell.sees, ...bounds(outside) });
+      }
+      if (!finished) break;
+      cells = next;
+      used = k + 1;
+      added++;
+    }
+    return added;
+  }
+
+  function solve(limits: { seconds: number; nodes?: number }) {
+    if (used === 0) return { bound: 0, witnesses: 0, posts: [] };
+    // Only cells whose witness set no other cell's set contains matter to the minimum.
+    const byKey = new Map(cells.map((c) => [c.sees.join(","), c]));
+    const sets = [...byKey.values()].sort((a, b) => b.sees.length - a.sees.length);
+    const maximalCells: Cell[] = [];
+    for (const cell of sets) {
+      if (cell.sees.length === 0) continue;
+      if (!maximalCells.some((m) => cell.sees.every((w) => m.sees.includes(w)))) maximalCells.push(cell);
+    }
+    const maximal = maximalCells.map((c) => c.sees);
+    const holding: number[][] = Array.from({ length: used }, () => []);
+    maximal.forEach((set, j) => set.forEach((w) => holding[w].push(j)));
+    if (holding.some((h) => h.length === 0)) return { bound: 0, witnesses: used, posts: [] };
+    const answer = solveBinaryProgram({
+      sense: "minimise",
+      weights: maximal.map(() => 1),
+      atLeast: holding.map((items) => ({ items, need: 1 })),
+      seconds: Math.max(0.1, limits.seconds),
+      nodes: limits.nodes,
+    });
+    // Only a proven optimum is a bound; an unfinished search only gives an upper value.
+    const posts = answer.chosen.map((j) => pointInside(maximalCells[j].paths.map((path) => path.map((p) => [p.X / scale, p.Y / scale] as Point))));
+    return { bound: answer.status === "optimal" ? answer.chosen.length : 0, witnesses: used, posts };
+  }
+
+  return {
+    get witnesses() {
+      return used;
+    },
+    add,
+    solve,
+  };
+}
+
+/**
+ * The fewest posts that can see the given witnesses (in the order given, as many as the limits
+ * allow), or 0 when not even the integer program could be solved to optimality; with a point in
  * each chosen cell, which the planner tries as posts.
  */
 export function arrangementBound(
@@ -50,66 +148,8 @@ export function arrangementBound(
   regions: Region[],
   limits: { seconds: number; clips?: number; nodes?: number },
 ): { bound: number; witnesses: number; posts: Point[] } {
-  // The overlay stops before the witness whose cells would pass `clips` boolean operations (a count,
-  // so the same on any machine); the clock is only a safety net.
   const stopAt = performance.now() + 1000 * limits.seconds;
-  const maxClips = limits.clips ?? Infinity;
-  let clips = 0;
-  let size = 1;
-  for (const ring of [room.outline, ...room.obstacles]) for (const [x, y] of ring) size = Math.max(size, Math.abs(x), Math.abs(y));
-  const scale = gridScale(size);
-  const roomPaths = toPaths([[room.outline, ...room.obstacles]], scale);
-  let cells: Cell[] = [{ paths: roomPaths, sees: [], ...bounds(roomPaths) }];
-  let used = 0;
-  for (let k = 0; k < regions.length; k++) {
-    const grown = growPaths(toPaths(regions[k], scale), GROW_CELLS);
-    const box = bounds(grown);
-    const next: Cell[] = [];
-    let finished = true;
-    for (const cell of cells) {
-      if (clips >= maxClips || performance.now() > stopAt) {
-        finished = false;
-        break;
-      }
-      if (cell.maxX < box.minX || cell.minX > box.maxX || cell.maxY < box.minY || cell.minY > box.maxY) {
-        next.push(cell);
-        continue;
-      }
-      clips++;
-      const inside = clipPaths("intersection", cell.paths, grown);
-      if (inside.length === 0) {
-        next.push(cell);
-        continue;
-      }
-      next.push({ paths: inside, sees: [...cell.sees, k], ...bounds(inside) });
-      const outside = clipPaths("difference", cell.paths, grown);
-      if (outside.length) next.push({ paths: outside, sees: cell.sees, ...bounds(outside) });
-    }
-    if (!finished) break;
-    cells = next;
-    used = k + 1;
-  }
-  if (used === 0) return { bound: 0, witnesses: 0, posts: [] };
-  // Only cells whose witness set no other cell's set contains matter to the minimum.
-  const byKey = new Map(cells.map((c) => [c.sees.join(","), c]));
-  const sets = [...byKey.values()].sort((a, b) => b.sees.length - a.sees.length);
-  const maximalCells: Cell[] = [];
-  for (const cell of sets) {
-    if (cell.sees.length === 0) continue;
-    if (!maximalCells.some((m) => cell.sees.every((w) => m.sees.includes(w)))) maximalCells.push(cell);
-  }
-  const maximal = maximalCells.map((c) => c.sees);
-  const holding: number[][] = Array.from({ length: used }, () => []);
-  maximal.forEach((set, j) => set.forEach((w) => holding[w].push(j)));
-  if (holding.some((h) => h.length === 0)) return { bound: 0, witnesses: used, posts: [] };
-  const answer = solveBinaryProgram({
-    sense: "minimise",
-    weights: maximal.map(() => 1),
-    atLeast: holding.map((items) => ({ items, need: 1 })),
-    seconds: Math.max(0.1, (stopAt - performance.now()) / 1000 + 0.5),
-    nodes: limits.nodes,
-  });
-  // Only a proven optimum is a bound; an unfinished search only gives an upper value.
-  const posts = answer.chosen.map((j) => pointInside(maximalCells[j].paths.map((path) => path.map((p) => [p.X / scale, p.Y / scale] as Point))));
-  return { bound: answer.status === "optimal" ? answer.chosen.length : 0, witnesses: used, posts };
+  const overlay = createWitnessCells(room);
+  overlay.add(regions, { clips: limits.clips, stopAt });
+  return overlay.solve({ seconds: (stopAt - performance.now()) / 1000 + 0.5, nodes: limits.nodes });
 }
