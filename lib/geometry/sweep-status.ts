@@ -213,6 +213,30 @@ export class IndexSweepStatus {
     this.count--;
   }
 
+  /**
+   * Put `entry` in the place of `old`, which leaves the status, in O(height) with no search: for a
+   * wall that ends where the next wall of its ring begins, so nothing lies between the two.
+   */
+  replace(old: number, entry: number): void {
+    const from = old + 1;
+    const id = entry + 1;
+    const height = this.heights[from];
+    if (height === 0) throw new RangeError(`sweep status: entry ${old} is not in the status`);
+    if (this.heights[id] !== 0) throw new RangeError(`sweep status: entry ${entry} is already in the status`);
+    for (let l = 0; l < height; l++) {
+      const next = this.nexts[l];
+      const prev = this.prevs[l];
+      const before = prev[from];
+      const after = next[from];
+      next[id] = after;
+      prev[id] = before;
+      next[before] = id;
+      if (after !== 0) prev[after] = id;
+    }
+    this.heights[id] = height;
+    this.heights[from] = 0;
+  }
+
   /** All entries left to right (for tests and debugging). */
   items(): number[] {
     const out: number[] = [];

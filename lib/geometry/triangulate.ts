@@ -203,8 +203,9 @@ function sweepDiagonals(graph: FlatGraph): DiagonalList {
       }
       case Corner.RegularFloorRight:
         joinIfMerge(v, prev[v]);
-        removeWall(prev[v]);
-        insertWall(v);
+        // The wall from v continues the one ending at v: same place in the status, no search.
+        status.replace(prev[v], v);
+        helper[v] = v;
         break;
       case Corner.RegularFloorLeft: {
         const left = wallLeftOf(v);

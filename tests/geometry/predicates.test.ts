@@ -98,7 +98,7 @@ describe("IndexSweepStatus (skip list over typed arrays)", () => {
   it("keeps order and removals like a sorted array (the model: a plain sorted array)", () => {
     fc.assert(
       fc.property(fc.array(fc.tuple(fc.boolean(), fc.integer({ min: 0, max: 200 })), { maxLength: 300 }), (operations) => {
-        const status = new IndexSweepStatus(201);
+        const status = new IndexSweepStatus(402);
         const model: number[] = [];
         for (const [add, value] of operations) {
           if (add && !model.includes(value)) {
@@ -106,7 +106,13 @@ describe("IndexSweepStatus (skip list over typed arrays)", () => {
             model.push(value);
             model.sort((a, b) => a - b);
           } else if (!add && model.includes(value)) {
-            status.remove(value);
+            // Half the removals replace the entry in place by a fresh one (value + 201) and remove that.
+            if (value % 2 === 0) {
+              status.replace(value, value + 201);
+              const inPlace = model.map((v) => (v === value ? value + 201 : v));
+              expect(status.items()).toEqual(inPlace);
+              status.remove(value + 201);
+            } else status.remove(value);
             model.splice(model.indexOf(value), 1);
           }
           expect(status.items()).toEqual(model);
