@@ -326,10 +326,25 @@ export function planFewestOver(
     }
     if (proof.bound >= best.posts.length) break;
     const before = candidates.length;
+    const witnessesBefore = witnesses.length;
     for (const p of dual.posts) addCandidate(p);
+    // The cells' own posts: if they see the room the plan meets the bound; else their gaps add witnesses.
+    const cellPosts = dual.posts.filter((p) => candidateKeys.has(key(p)));
+    if (dual.bound > 0 && cellPosts.length === dual.posts.length && cellPosts.length < best.posts.length) {
+      const certificate = certify(cellPosts);
+      if (certificate.covered === 1) {
+        best = { posts: cellPosts, certificate };
+        continue;
+      }
+      for (const polygon of certificate.uncovered) {
+        const p = pointInside(polygon);
+        addWitness(p);
+        addCandidate(p);
+      }
+    }
     const complete = count === waiting.length;
-    if (candidates.length === before && complete) break;
-    if (candidates.length > before) coverRounds(WORK_LIMITS.laterRounds, secondsLeft);
+    if (candidates.length === before && witnesses.length === witnessesBefore && complete) break;
+    coverRounds(WORK_LIMITS.laterRounds, secondsLeft);
   }
 
   const chosen = best ?? lastTry;
