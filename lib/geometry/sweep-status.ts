@@ -122,8 +122,13 @@ export class SweepStatus<T> {
  */
 export class IndexSweepStatus {
   // Node id = entry + 1; id 0 is the head, and a link 0 means "none" (the head is never a successor).
-  private readonly nexts: Int32Array[] = [];
-  private readonly prevs: Int32Array[] = [];
+  // Links of level l live at [l * stride, (l + 1) * stride) of one array each way: two allocations
+  // per sweep instead of two per level (which dominated small rooms).
+  private readonly next: Int32Array;
+  private readonly prev: Int32Array;
+  private readonly stride: number;
+  /** log4(capacity) + 2 levels: enough for O(log n) searches at promotion 1/4 (Pugh 1990). */
+  private readonly maxHeight: number;
   private readonly heights: Uint8Array;
   private readonly update = new Int32Array(MAX_LEVEL);
   private level = 0;
@@ -134,6 +139,10 @@ export class IndexSweepStatus {
     private readonly capacity: number,
     seed = 0x9e3779b9,
   ) {
+    this.stride = capacity + 1;
+    this.maxHeight = Math.min(16, Math.ceil(Math.log2(capacity + 1) / 2) + 2);
+    this.next = new Int32Array(this.stride * this.maxHeight);
+    this.prev = new Int32Array(this.stride * this.maxHeight);
     this.heights = new Uint8Array(capacity + 1);
     this.seed = seed >>> 0 || 1;
   }
@@ -150,16 +159,18 @@ export class IndexSweepStatus {
     x ^= x << 5;
     this.seed = x >>> 0;
     let height = 1;
-    for (let bits = this.seed; (bits & 3) === 0 && height < 16; bits >>>= 2) height++;
+    for (let bits = this.seed; (bits & 3) === 0 && height < this.maxHeight; bits >>>= 2) height++;
     return height;
   }
 
   /** The last entry for which `isBefore` holds (monotone along the status), or -1 when none. */
   lastWhere<Q>(isBefore: (entry: number, probe: Q) => boolean, probe: Q): number {
+    const next = this.next;
+    const stride = this.stride;
     let x = 0;
     for (let l = this.level - 1; l >= 0; l--) {
-      const next = this.nexts[l];
-      for (let n = next[x]; n !== 0 && isBefore(n - 1, probe); n = next[x]) x = n;
+      const base = l * stride;
+      for (let n = next[base + x]; n !== 0 && isBefore(n - 1, probe); n = next[base + x]) x = n;
     }
     return x - 1;
   }
@@ -168,30 +179,27 @@ export class IndexSweepStatus {
   insert<Q>(entry: number, isBefore: (other: number, probe: Q) => boolean, probe: Q): void {
     if (!(entry >= 0 && entry < this.capacity)) throw new RangeError(`sweep status: entry ${entry} outside 0..${this.capacity - 1}`);
     const update = this.update;
+    const next = this.next;
+    const prev = this.prev;
+    const stride = this.stride;
     let x = 0;
     for (let l = this.level - 1; l >= 0; l--) {
-      const next = this.nexts[l];
-      for (let n = next[x]; n !== 0 && isBefore(n - 1, probe); n = next[x]) x = n;
+      const base = l * stride;
+      for (let n = next[base + x]; n !== 0 && isBefore(n - 1, probe); n = next[base + x]) x = n;
       update[l] = x;
     }
     const height = this.randomHeight();
-    while (this.level < height) {
-      if (this.nexts.length === this.level) {
-        this.nexts.push(new Int32Array(this.capacity + 1));
-        this.prevs.push(new Int32Array(this.capacity + 1));
-      }
-      update[this.level++] = 0;
-    }
+    while (this.level < height) update[this.level++] = 0;
     const id = entry + 1;
     this.heights[id] = height;
     for (let l = 0; l < height; l++) {
-      const next = this.nexts[l];
+      const base = l * stride;
       const after = update[l];
-      const following = next[after];
-      next[id] = following;
-      this.prevs[l][id] = after;
-      next[after] = id;
-      if (following !== 0) this.prevs[l][following] = id;
+      const following = next[base + after];
+      next[base + id] = following;
+      prev[base + id] = after;
+      next[base + after] = id;
+      if (following !== 0) prev[base + following] = id;
     }
     this.count++;
   }
@@ -201,13 +209,13 @@ export class IndexSweepStatus {
     const id = entry + 1;
     const height = this.heights[id];
     if (height === 0) throw new RangeError(`sweep status: entry ${entry} is not in the status`);
-    for (let l = 0; l < height; l++) {
-      const next = this.nexts[l];
-      const prev = this.prevs[l];
-      const before = prev[id];
-      const after = next[id];
-      next[before] = after;
-      if (after !== 0) prev[after] = before;
+    const next = this.next;
+    const prev = this.prev;
+    for (let l = 0, base = 0; l < height; l++, base += this.stride) {
+      const before = prev[base + id];
+      const after = next[base + id];
+      next[base + before] = after;
+      if (after !== 0) prev[base + after] = before;
     }
     this.heights[id] = 0;
     this.count--;
@@ -223,15 +231,15 @@ export class IndexSweepStatus {
     const height = this.heights[from];
     if (height === 0) throw new RangeError(`sweep status: entry ${old} is not in the status`);
     if (this.heights[id] !== 0) throw new RangeError(`sweep status: entry ${entry} is already in the status`);
-    for (let l = 0; l < height; l++) {
-      const next = this.nexts[l];
-      const prev = this.prevs[l];
-      const before = prev[from];
-      const after = next[from];
-      next[id] = after;
-      prev[id] = before;
-      next[before] = id;
-      if (after !== 0) prev[after] = id;
+    const next = this.next;
+    const prev = this.prev;
+    for (let l = 0, base = 0; l < height; l++, base += this.stride) {
+      const before = prev[base + from];
+      const after = next[base + from];
+      next[base + id] = after;
+      prev[base + id] = before;
+      next[base + before] = id;
+      if (after !== 0) prev[base + after] = id;
     }
     this.heights[id] = height;
     this.heights[from] = 0;
@@ -241,7 +249,7 @@ export class IndexSweepStatus {
   items(): number[] {
     const out: number[] = [];
     if (this.level === 0) return out;
-    for (let n = this.nexts[0][0]; n !== 0; n = this.nexts[0][n]) out.push(n - 1);
+    for (let n = this.next[0]; n !== 0; n = this.next[n]) out.push(n - 1);
     return out;
   }
 }
