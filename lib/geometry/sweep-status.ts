@@ -131,6 +131,8 @@ export class IndexSweepStatus {
   private readonly maxHeight: number;
   private readonly heights: Uint8Array;
   private readonly update = new Int32Array(MAX_LEVEL);
+  /** The last node on each level (0: none): entries that go to the right end need no search. */
+  private readonly tails = new Int32Array(MAX_LEVEL);
   private level = 0;
   private seed: number;
   private count = 0;
@@ -182,11 +184,17 @@ export class IndexSweepStatus {
     const next = this.next;
     const prev = this.prev;
     const stride = this.stride;
-    let x = 0;
-    for (let l = this.level - 1; l >= 0; l--) {
-      const base = l * stride;
-      for (let n = next[base + x]; n !== 0 && isBefore(n - 1, probe); n = next[base + x]) x = n;
-      update[l] = x;
+    const last = this.tails[0];
+    if (last !== 0 && isBefore(last - 1, probe)) {
+      // After every entry (sweeps often add walls left to right): the tails are the predecessors.
+      for (let l = this.level - 1; l >= 0; l--) update[l] = this.tails[l];
+    } else {
+      let x = 0;
+      for (let l = this.level - 1; l >= 0; l--) {
+        const base = l * stride;
+        for (let n = next[base + x]; n !== 0 && isBefore(n - 1, probe); n = next[base + x]) x = n;
+        update[l] = x;
+      }
     }
     const height = this.randomHeight();
     while (this.level < height) update[this.level++] = 0;
@@ -200,6 +208,7 @@ export class IndexSweepStatus {
       prev[base + id] = after;
       next[base + after] = id;
       if (following !== 0) prev[base + following] = id;
+      else this.tails[l] = id;
     }
     this.count++;
   }
@@ -216,6 +225,7 @@ export class IndexSweepStatus {
       const after = next[base + id];
       next[base + before] = after;
       if (after !== 0) prev[base + after] = before;
+      else this.tails[l] = before;
     }
     this.heights[id] = 0;
     this.count--;
@@ -240,6 +250,7 @@ export class IndexSweepStatus {
       prev[base + id] = before;
       next[base + before] = id;
       if (after !== 0) prev[base + after] = id;
+      else this.tails[l] = id;
     }
     this.heights[id] = height;
     this.heights[from] = 0;
