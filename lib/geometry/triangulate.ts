@@ -124,13 +124,6 @@ interface DiagonalList {
  * status are those with floor to their right (they run downward in ring order); each has a helper,
  * the lowest corner above the sweep line that sees it horizontally.
  */
-export function monotoneDiagonals(graph: RoomGraph): [number, number][] {
-  const { ends, count } = sweepDiagonals(flatGraph(graph));
-  const out: [number, number][] = new Array(count);
-  for (let d = 0; d < count; d++) out[d] = [ends[2 * d], ends[2 * d + 1]];
-  return out;
-}
-
 function sweepDiagonals(graph: FlatGraph): DiagonalList {
   const { next, prev, xs, ys } = graph;
   const n = xs.length;
@@ -392,23 +385,6 @@ function walkPieces(
   for (let i = 0; i < starts.length; i += 2) visit(corners, starts[i], starts[i + 1], scratch);
 }
 
-/**
- * The faces cut out by walls and diagonals, each a counter-clockwise cycle of corners: the
- * y-monotone pieces (see walkPieces).
- */
-export function monotonePieces(graph: RoomGraph, diagonals: [number, number][]): number[][] {
-  const ends = new Int32Array(2 * diagonals.length);
-  for (let d = 0; d < diagonals.length; d++) {
-    ends[2 * d] = diagonals[d][0];
-    ends[2 * d + 1] = diagonals[d][1];
-  }
-  const pieces: number[][] = [];
-  walkPieces(flatGraph(graph), { ends, count: diagonals.length }, (corners, start, m) => {
-    pieces.push(Array.from(corners.subarray(start, start + m)));
-  });
-  return pieces;
-}
-
 const LEFT = 1;
 const RIGHT = 2;
 
@@ -417,35 +393,8 @@ const RIGHT = 2;
  * in linear time. The stack holds a chain that turns away from the floor (reflex or straight);
  * a corner on the same chain cuts off triangles only while they are strictly positive, so straight
  * runs of collinear corners wait on the stack and are fanned from the opposite chain later.
+ * The piece is corners[start .. start + m), with coordinates from the flat arrays.
  */
-export function triangulateMonotonePiece(
-  points: Point[],
-  piece: number[],
-  out: [number, number, number][],
-  scratch?: { sorted: Int32Array; chain: Uint8Array },
-): void {
-  const m = piece.length;
-  if (m < 3) throw new Error(`triangulate: a piece with ${m} corners; is the room valid?`);
-  // The piece's own corners as flat arrays, then back to the caller's corner numbers.
-  const xs = new Float64Array(m);
-  const ys = new Float64Array(m);
-  const local = new Int32Array(m);
-  for (let i = 0; i < m; i++) {
-    xs[i] = points[piece[i]][0];
-    ys[i] = points[piece[i]][1];
-    local[i] = i;
-  }
-  const mine: [number, number, number][] = [];
-  const buffers: PieceScratch = {
-    sorted: scratch && scratch.sorted.length >= m ? scratch.sorted : new Int32Array(m),
-    chain: scratch && scratch.chain.length >= m ? scratch.chain : new Uint8Array(m),
-    stack: new Int32Array(m),
-  };
-  triangulatePieceAt(xs, ys, local, 0, m, mine, buffers);
-  for (const [a, b, c] of mine) out.push([piece[a], piece[b], piece[c]]);
-}
-
-/** triangulateMonotonePiece on the piece corners[start .. start + m), coordinates from flat arrays. */
 function triangulatePieceAt(
   xs: Float64Array,
   ys: Float64Array,
