@@ -9,6 +9,7 @@
 //   (node-postgres would send a JavaScript array as a PostgreSQL array, not as JSON).
 import type { ColumnType, Generated, GeneratedAlways, Insertable, Selectable, Updateable } from "kysely";
 import type { Point, Ring } from "@/lib/geometry/types";
+import type { Totals } from "@/lib/scheduling/totals";
 
 /** A jsonb column: read as T, written as JSON text (use toJson). */
 export type Json<T> = ColumnType<T, string, string>;
@@ -155,18 +156,11 @@ export interface RosterUnfilled {
   reason: string;
 }
 
-/** A roster's totals as the engine computes them (lib/scheduling/totals.ts). */
-export interface RosterTotals {
-  postHours: number;
-  filledPostHours: number;
-  unfilledPostHours: number;
-  paidHours: number;
-  overtimeHours: number;
-  cost: number;
-  lowerBoundCost: number;
-  gap: number;
-  [extra: string]: unknown;
-}
+/** A roster's totals as the engine computes them (lib/scheduling/totals.ts), as stored. */
+export type RosterTotals = Pick<
+  Totals,
+  "postHours" | "filledPostHours" | "unfilledPostHours" | "paidHours" | "overtimeHours" | "cost" | "lowerBoundCost" | "gap"
+> & { [extra: string]: unknown };
 
 /** A broken hard rule (timestamps as ISO text). */
 export interface RosterViolation {
@@ -288,6 +282,8 @@ export type NewExhibition = Insertable<ExhibitionsTable>;
 export type ExhibitionRoom = Selectable<ExhibitionRoomsTable>;
 export type NewExhibitionRoom = Insertable<ExhibitionRoomsTable>;
 export type Guard = Selectable<GuardsTable>;
+/** What the people table and the roster scenario read of a guard. */
+export type GuardRow = Pick<Guard, "id" | "name" | "email" | "contract_hours" | "max_hours" | "skills">;
 export type NewGuard = Insertable<GuardsTable>;
 export type Roster = Selectable<RostersTable>;
 export type NewRoster = Insertable<RostersTable>;

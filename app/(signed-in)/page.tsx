@@ -1,11 +1,12 @@
 import type { Metadata } from "next";
 import Link from "next/link";
 import { db } from "@/db";
+import { guardByUserId } from "@/db/queries/rosters";
 import { ROLE_LABELS } from "@/lib/auth/roles";
 import { requirePageUser } from "@/lib/auth/session";
 import { calendarDate, siteTime } from "@/components/when";
 import { currentExhibition, exhibitionsWithRooms, floorsWithRooms, mainSite, siteDay } from "./_queries/site";
-import { guardForUser, nextShiftOfGuard } from "./_queries/shifts";
+import { nextShiftOfGuard } from "./_queries/shifts";
 import { TodayPanel } from "./_components/today-panel";
 import { ExhibitionPanel } from "./_components/exhibition-panel";
 
@@ -54,7 +55,7 @@ export default async function HomePage() {
 }
 
 async function GuardNextShift({ userId, timeZone }: { userId: number; timeZone: string }) {
-  const guard = await guardForUser(userId);
+  const guard = await guardByUserId(db, userId);
   const shift = guard ? await nextShiftOfGuard(guard.id) : null;
   return (
     <section aria-labelledby="next-shift" className="card border-l-4 border-l-brass-500">

@@ -189,11 +189,20 @@ export function latestPublishedRosters(handle: Handle) {
     );
 }
 
-/** A guard's shifts in the latest published version of each week, ending after `from`, earliest first. */
-export async function currentShiftsOfGuard(handle: Handle, guardId: number, from?: Date) {
-  let query = handle
+/**
+ * A guard's shifts in the latest published version of each week (a draft may still change under
+ * them): the one query home, My shifts and the calendar feed build on.
+ */
+export function publishedShiftsOfGuard(handle: Handle, guardId: number) {
+  return handle
     .selectFrom("shifts")
     .innerJoin(latestPublishedRosters(handle).as("roster"), "roster.id", "shifts.roster_id")
+    .where("shifts.guard_id", "=", guardId);
+}
+
+/** A guard's shifts in the latest published version of each week, ending after `from`, earliest first. */
+export async function currentShiftsOfGuard(handle: Handle, guardId: number, from?: Date) {
+  let query = publishedShiftsOfGuard(handle, guardId)
     .innerJoin("sites", "sites.id", "roster.site_id")
     .select([
       "shifts.id",
@@ -206,8 +215,7 @@ export async function currentShiftsOfGuard(handle: Handle, guardId: number, from
       "roster.starts_on",
       "sites.name as site_name",
       "sites.time_zone",
-    ])
-    .where("shifts.guard_id", "=", guardId);
+    ]);
   if (from) query = query.where("shifts.ends_at", ">", from);
   return query.orderBy("shifts.starts_at").execute();
 }

@@ -3,7 +3,7 @@
 // and skills, approved time off as unavailability, and the default rules.
 import { parseScenario, type Scenario } from "@/lib/scheduling/scenario";
 import { addLocalDays } from "@/lib/scheduling/time";
-import type { OpeningHours } from "@/db/schema";
+import type { GuardRow, OpeningHours } from "@/db/schema";
 
 export const ROSTER_DAYS = 7;
 
@@ -20,14 +20,6 @@ export interface PostRow {
   skills: string[];
 }
 
-export interface GuardRow {
-  id: number;
-  name: string;
-  email: string;
-  contract_hours: number;
-  max_hours: number;
-  skills: string[];
-}
 
 export interface TimeOffRow {
   guard_id: number;

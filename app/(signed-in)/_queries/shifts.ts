@@ -1,6 +1,6 @@
 import "server-only";
 import { db } from "@/db";
-import { latestPublishedRosters } from "@/db/queries/rosters";
+import { publishedShiftsOfGuard } from "@/db/queries/rosters";
 import type { ShiftBreak, ShiftSegment } from "@/db/schema";
 
 export interface GuardShift {
@@ -12,32 +12,15 @@ export interface GuardShift {
   roster_version: number;
 }
 
-/** The guard record linked to a user account, if any. */
-export async function guardForUser(userId: number) {
-  return (
-    (await db
-      .selectFrom("guards")
-      .select(["id", "name", "site_id", "contract_hours", "skills"])
-      .where("user_id", "=", userId)
-      .executeTakeFirst()) ?? null
-  );
-}
-
-// A guard sees published rosters only (a draft may still change under them), and of each week only
-// the latest published version, the one My shifts and the calendar feed show too.
 function publishedShiftsOf(guardId: number) {
-  return db
-    .selectFrom("shifts")
-    .innerJoin(latestPublishedRosters(db).as("roster"), "roster.id", "shifts.roster_id")
-    .select([
-      "shifts.id",
-      "shifts.starts_at",
-      "shifts.ends_at",
-      "shifts.segments",
-      "shifts.breaks",
-      "roster.version as roster_version",
-    ])
-    .where("shifts.guard_id", "=", guardId);
+  return publishedShiftsOfGuard(db, guardId).select([
+    "shifts.id",
+    "shifts.starts_at",
+    "shifts.ends_at",
+    "shifts.segments",
+    "shifts.breaks",
+    "roster.version as roster_version",
+  ]);
 }
 
 /** A guard's shifts in the current version of each week, ending after `from`, earliest first. */

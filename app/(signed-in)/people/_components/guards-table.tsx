@@ -9,15 +9,8 @@ import {
   type SortingState,
 } from "@tanstack/react-table";
 import { useState } from "react";
+import type { GuardRow } from "@/db/schema";
 
-export interface GuardRow {
-  id: number;
-  name: string;
-  email: string;
-  contract_hours: number;
-  max_hours: number;
-  skills: string[];
-}
 
 const column = createColumnHelper<GuardRow>();
 const columns = [
