@@ -175,10 +175,23 @@ export interface SeedExhibitionRoom {
   double_cover: boolean;
 }
 
+const DAY_MS = 86_400_000;
+
+/**
+ * The demo exhibition's dates around the day the museum is seeded: it opened on the Monday seven
+ * weeks before and runs to the Sunday twenty-six weeks after, so a freshly seeded demo always has a
+ * current exhibition with months ahead to plan and roster (fixed dates would run out).
+ */
+export function exhibitionDates(seededOn: Date = new Date()): { starts_on: string; ends_on: string } {
+  const day = Date.UTC(seededOn.getUTCFullYear(), seededOn.getUTCMonth(), seededOn.getUTCDate());
+  const monday = day - ((new Date(day).getUTCDay() + 6) % 7) * DAY_MS;
+  const iso = (ms: number) => new Date(ms).toISOString().slice(0, 10);
+  return { starts_on: iso(monday - 7 * 7 * DAY_MS), ends_on: iso(monday + (26 * 7 + 6) * DAY_MS) };
+}
+
 export const EXHIBITION = {
   name: "Woven Futures: Textiles and the Machine",
-  starts_on: "2026-10-15",
-  ends_on: "2027-02-28",
+  ...exhibitionDates(),
   rooms: [
     { room: "Exhibition Hall East", risk_level: "high", sight_range: 15, double_cover: false },
     { room: "Exhibition Hall West", risk_level: "standard", sight_range: 12, double_cover: false },

@@ -13,10 +13,10 @@ import { currentShiftsOfGuard } from "@/db/queries/rosters";
 import { nextShiftOfGuard, shiftsOfGuard } from "@/app/(signed-in)/_queries/shifts";
 import { requireDatabaseUrl } from "./support/database";
 
-// A week of its own (no other test publishes it) and a guard of its own (no other shifts).
-const WEEK = "2027-03-08";
+// A past week of its own (the other tests publish weeks ahead of today) and a guard of its own (no other shifts).
+const WEEK = "2026-03-09";
 const GUARD_EMAIL = "next-shift-test@example.org";
-const BEFORE_WEEK = new Date("2027-03-07T00:00:00Z");
+const BEFORE_WEEK = new Date("2026-03-08T00:00:00Z");
 let db: Kysely<Database>;
 let siteId: number;
 let guardId: number;
@@ -74,8 +74,8 @@ afterAll(async () => {
 
 describe("the home page's next shift", () => {
   it("follows the latest published version of the week, like My shifts", async () => {
-    const monday = { starts_at: new Date("2027-03-08T09:00:00Z"), ends_at: new Date("2027-03-08T17:00:00Z") };
-    const tuesday = { starts_at: new Date("2027-03-09T09:00:00Z"), ends_at: new Date("2027-03-09T17:00:00Z") };
+    const monday = { starts_at: new Date("2026-03-09T09:00:00Z"), ends_at: new Date("2026-03-09T17:00:00Z") };
+    const tuesday = { starts_at: new Date("2026-03-10T09:00:00Z"), ends_at: new Date("2026-03-10T17:00:00Z") };
 
     const v1 = await publishVersion(1, null, [monday, tuesday]);
     const fromV1 = await nextShiftOfGuard(guardId, BEFORE_WEEK);

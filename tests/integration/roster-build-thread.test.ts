@@ -16,8 +16,14 @@ import { buildRoster } from "@/lib/scheduling/engine";
 import { loadHighs } from "@/lib/scheduling/highsSolver";
 import { requireDatabaseUrl } from "./support/database";
 
-// A week inside the seeded exhibition that no other test builds.
-const WEEK = "2027-02-08";
+// A week inside the seeded exhibition (which runs 26 weeks past the seeding day) that no other test
+// builds: the Monday ten to eleven weeks ahead (the other tests take weeks one to about eight ahead).
+const WEEK = (() => {
+  const now = new Date();
+  const day = new Date(Date.UTC(now.getUTCFullYear(), now.getUTCMonth(), now.getUTCDate() + 70));
+  while (day.getUTCDay() !== 1) day.setUTCDate(day.getUTCDate() + 1);
+  return day.toISOString().slice(0, 10);
+})();
 const ROUND_TRIPS = 20;
 let db: Kysely<Database>;
 let siteId: number;

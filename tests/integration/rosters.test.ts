@@ -17,9 +17,29 @@ import { rosterJobHandlers } from "@/lib/rosters/jobs";
 import { RosterProblem } from "@/lib/rosters/problem";
 import { publishDraft, ROSTER_BUILD_JOB, ROSTER_MAIL_JOB } from "@/lib/rosters/publish";
 import { requireDatabaseUrl } from "./support/database";
+import { SITE } from "@/db/seed/museum";
+import { parseLocal } from "@/lib/scheduling/time";
+import { TZDate } from "@date-fns/tz";
+import { format } from "date-fns";
 
-// A week inside the seeded exhibition (15 Oct 2026 - 28 Feb 2027) with no dated exception.
-const WEEK = "2027-01-18";
+/**
+ * A Monday four to five weeks ahead whose week has no dated opening exception: inside the seeded
+ * exhibition (which runs 26 weeks past the seeding day) and clear of the browser tests' week (one
+ * to two weeks ahead), which share this database.
+ */
+function quietWeekAhead(): string {
+  const now = new Date();
+  const day = new Date(Date.UTC(now.getUTCFullYear(), now.getUTCMonth(), now.getUTCDate() + 28));
+  while (day.getUTCDay() !== 1) day.setUTCDate(day.getUTCDate() + 1);
+  const dated = Object.keys(SITE.opening_hours.dates ?? {});
+  const iso = (d: Date) => d.toISOString().slice(0, 10);
+  const weekOf = (monday: Date) => Array.from({ length: 7 }, (_, i) => iso(new Date(monday.getTime() + i * 86_400_000)));
+  while (weekOf(day).some((d) => dated.includes(d))) day.setUTCDate(day.getUTCDate() + 7);
+  return iso(day);
+}
+const WEEK = quietWeekAhead();
+/** The date `days` after WEEK's Monday. */
+const dayOf = (days: number) => new Date(Date.parse(`${WEEK}T00:00:00Z`) + days * 86_400_000).toISOString().slice(0, 10);
 let db: Kysely<Database>;
 let siteId: number;
 let draftId: number;
@@ -75,8 +95,8 @@ describe("building, publishing and mailing a week", () => {
     await db
       .insertInto("time_off")
       .values([
-        { guard_id: maraGuardId, starts_on: "2027-01-19", ends_on: "2027-01-20", note: "rosters integration test", status: "approved" },
-        { guard_id: maraGuardId, starts_on: "2027-01-22", ends_on: "2027-01-22", note: "rosters integration test", status: "declined" },
+        { guard_id: maraGuardId, starts_on: dayOf(1), ends_on: dayOf(2), note: "rosters integration test", status: "approved" },
+        { guard_id: maraGuardId, starts_on: dayOf(4), ends_on: dayOf(4), note: "rosters integration test", status: "declined" },
       ])
       .execute();
     const queued = await enqueueJob(db, { kind: ROSTER_BUILD_JOB, payload: { siteId, startsOn: WEEK, userId: null } });
@@ -104,8 +124,8 @@ describe("building, publishing and mailing a week", () => {
     const postIds = new Set(posts.map((p) => p.id));
     for (const shift of shifts) for (const segment of shift.segments) expect(postIds.has(segment.post)).toBe(true);
 
-    // Approved time off is unavailability: nothing for Mara from Tue 19 Jan 00:00 to Thu 21 Jan 00:00 in Berlin (UTC+1).
-    const off = { start: Date.parse("2027-01-18T23:00:00Z"), end: Date.parse("2027-01-20T23:00:00Z") };
+    // Approved time off is unavailability: nothing for Mara from Tuesday 00:00 to Thursday 00:00 in Berlin.
+    const off = { start: parseLocal("Europe/Berlin", `${dayOf(1)}T00:00`), end: parseLocal("Europe/Berlin", `${dayOf(3)}T00:00`) };
     const maras = shifts.filter((s) => s.guard_id === maraGuardId);
     for (const s of maras) expect(s.ends_at.getTime() <= off.start || s.starts_at.getTime() >= off.end).toBe(true);
   });
@@ -167,7 +187,7 @@ describe("building, publishing and mailing a week", () => {
     expect((job!.result as { sent: number[] }).sent.sort((a, b) => a - b)).toEqual([...guardIds].sort((a, b) => a - b));
     const guards = await db.selectFrom("guards").select(["id", "email", "name"]).where("id", "in", guardIds).execute();
     for (const guard of guards) {
-      const caught = (await listCaughtMail({ to: guard.email })).filter((m) => m.receivedAt >= since && m.subject.includes("week of 18 Jan 2027 (version 1)"));
+      const caught = (await listCaughtMail({ to: guard.email })).filter((m) => m.receivedAt >= since && m.subject.includes(`week of ${format(new TZDate(`${WEEK}T12:00:00Z`, "Europe/Berlin"), "d MMM yyyy")} (version 1)`));
       expect(caught, guard.email).toHaveLength(1);
       const mail = (await readCaughtMail(caught[0]!.id))!;
       expect(mail.text).toContain(`Hello ${guard.name}`);
@@ -197,7 +217,7 @@ describe("building, publishing and mailing a week", () => {
     await expect(sql`update rosters set days = 6 where id = ${version1Id}`.execute(db)).rejects.toThrow(/published and never changes/);
     await expect(sql`update shifts set guard_id = guard_id where roster_id = ${version1Id}`.execute(db)).rejects.toThrow(/never change/);
     await expect(
-      db.insertInto("shifts").values({ roster_id: version1Id, guard_id: maraGuardId, starts_at: "2027-01-24T10:00:00Z", ends_at: "2027-01-24T15:00:00Z" }).execute(),
+      db.insertInto("shifts").values({ roster_id: version1Id, guard_id: maraGuardId, starts_at: `${dayOf(6)}T10:00:00Z`, ends_at: `${dayOf(6)}T15:00:00Z` }).execute(),
     ).rejects.toThrow(/never change/);
     const mail = await runNextJob(db, rosterJobHandlers);
     expect(mail).toMatchObject({ kind: ROSTER_MAIL_JOB, status: "done" });
@@ -224,7 +244,8 @@ describe("building, publishing and mailing a week", () => {
     // (other weeks of the same database may add events of their own).
     const uids = ics.split("\r\n").filter((line) => line.startsWith("UID:"));
     for (const uid of uids) expect(uid.startsWith(`UID:shift-${guardId}-`)).toBe(true);
-    const thisWeek = ics.split("\r\n").filter((line) => /^DTSTART:202701(1[89]|2[0-4])T/.test(line));
+    const weekDays = Array.from({ length: 7 }, (_, i) => dayOf(i).replace(/-/g, ""));
+    const thisWeek = ics.split("\r\n").filter((line) => weekDays.some((d) => line.startsWith(`DTSTART:${d}T`)));
     expect(thisWeek.sort()).toEqual(own.map((s) => `DTSTART:${s.starts_at.toISOString().replace(/[-:]/g, "").replace(/\.\d{3}/, "")}`).sort());
     expect(ics).toContain("SEQUENCE:2");
     expect(await calendarFeed(db, "0".repeat(64))).toBeNull();

@@ -9,7 +9,7 @@ import { describe, expect, it } from "vitest";
 import earcut from "earcut";
 import { orient2d } from "robust-predicates";
 import type { Point, Ring } from "@/lib/geometry/types";
-import { EXHIBITION, FLOORS, GUARDS, SITE, SKILLS } from "@/db/seed/museum";
+import { EXHIBITION, FLOORS, GUARDS, SITE, SKILLS, exhibitionDates } from "@/db/seed/museum";
 import { DEMO_ACCOUNTS } from "@/db/seed/accounts";
 
 const require = createRequire(import.meta.url);
@@ -194,8 +194,20 @@ describe("demo museum data", () => {
     expect(Object.values(dates).some((span) => span !== null && span[1] > "21:00")).toBe(true);
   });
 
-  it("runs one exhibition spanning 2026-12-01 over existing rooms", () => {
-    expect(EXHIBITION.starts_on <= "2026-12-01" && "2026-12-01" <= EXHIBITION.ends_on).toBe(true);
+  it("runs one current exhibition over existing rooms, from a Monday weeks ago to a Sunday months ahead", () => {
+    const today = new Date().toISOString().slice(0, 10);
+    expect(EXHIBITION.starts_on <= today && today <= EXHIBITION.ends_on).toBe(true);
+    // Whatever day it is seeded on (every weekday, across a year end and a leap day).
+    for (const day of ["2026-12-01", "2026-12-06", "2026-12-07", "2027-12-31", "2028-02-29", "2031-06-15"]) {
+      const { starts_on, ends_on } = exhibitionDates(new Date(`${day}T12:00:00Z`));
+      expect(new Date(`${starts_on}T00:00:00Z`).getUTCDay(), `${day}: opens on a Monday`).toBe(1);
+      expect(new Date(`${ends_on}T00:00:00Z`).getUTCDay(), `${day}: closes on a Sunday`).toBe(0);
+      const weeksBefore = (Date.parse(day) - Date.parse(starts_on)) / (7 * 86_400_000);
+      const weeksAfter = (Date.parse(ends_on) - Date.parse(day)) / (7 * 86_400_000);
+      expect(weeksBefore, day).toBeGreaterThanOrEqual(7);
+      expect(weeksBefore, day).toBeLessThan(8);
+      expect(weeksAfter, day).toBeGreaterThanOrEqual(26);
+    }
     const names = new Set(rooms.map((r) => r.name));
     for (const entry of EXHIBITION.rooms) expect(names.has(entry.room)).toBe(true);
   });
