@@ -187,6 +187,8 @@ export interface JobsTable {
   result: ColumnType<unknown, string | null | undefined, string | null>;
   attempts: ColumnType<number, number | undefined, number>;
   locked_at: ColumnType<Date | null, Date | string | null | undefined, Date | string | null>;
+  /** A queued job is not claimed before this time (set when a passing failure is retried later). */
+  run_after: ColumnType<Date, Date | string | undefined, Date | string>;
   created_by: ColumnType<number | null, number | null | undefined, number | null>;
   created_at: ColumnType<Date, Date | string | undefined, Date | string>;
   finished_at: ColumnType<Date | null, Date | string | null | undefined, Date | string | null>;

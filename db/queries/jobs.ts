@@ -32,7 +32,7 @@ export async function claimNextJob(handle: Handle, kinds?: readonly string[]): P
        set status = 'running', locked_at = now(), attempts = attempts + 1, message = 'started'
      where id = (
        select id from jobs
-        where status = 'queued' ${kindFilter}
+        where status = 'queued' and run_after <= now() ${kindFilter}
         order by id
         limit 1
         for update skip locked)
@@ -68,6 +68,18 @@ export async function failJob(handle: Handle, id: number, message: string): Prom
   await handle
     .updateTable("jobs")
     .set({ status: "failed", message, locked_at: null, finished_at: sql<Date>`now()` })
+    .where("id", "=", id)
+    .execute();
+}
+
+/**
+ * Puts a job that failed for a passing reason back in the queue, to be claimed no sooner than
+ * `delaySeconds` from now; its result so far (e.g. which guards were already mailed) is kept.
+ */
+export async function retryJobLater(handle: Handle, id: number, delaySeconds: number, message: string): Promise<void> {
+  await handle
+    .updateTable("jobs")
+    .set({ status: "queued", locked_at: null, message, run_after: sql<Date>`now() + make_interval(secs => ${delaySeconds})` })
     .where("id", "=", id)
     .execute();
 }

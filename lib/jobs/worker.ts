@@ -3,7 +3,8 @@
 // tests (runNextJob); several processes may run it at once, SKIP LOCKED keeps them apart.
 import type { Kysely } from "kysely";
 import type { Database, Job } from "@/db/schema";
-import { claimNextJob, failJob, finishJob, reportJobProgress, requeueStaleJobs } from "@/db/queries/jobs";
+import { claimNextJob, failJob, finishJob, reportJobProgress, requeueStaleJobs, retryJobLater } from "@/db/queries/jobs";
+import { DEFAULT_RETRY, RetryLater, describeDelay, retryDelaySeconds, type RetryPolicy } from "./retry";
 
 export interface JobContext {
   db: Kysely<Database>;
@@ -21,10 +22,10 @@ export type JobHandlers = Record<string, JobHandler>;
 export const STALE_AFTER_SECONDS = 120;
 
 /**
- * Claims and runs the oldest queued job with a handler; returns it as finished, or null when
- * nothing was queued.
+ * Claims and runs the oldest queued job with a handler; returns it as finished (or queued again,
+ * when it threw RetryLater with attempts left), or null when nothing was queued.
  */
-export async function runNextJob(db: Kysely<Database>, handlers: JobHandlers): Promise<Job | null> {
+export async function runNextJob(db: Kysely<Database>, handlers: JobHandlers, retry: RetryPolicy = DEFAULT_RETRY): Promise<Job | null> {
   const job = await claimNextJob(db, Object.keys(handlers));
   if (!job) return null;
   const handler = handlers[job.kind]!;
@@ -38,8 +39,14 @@ export async function runNextJob(db: Kysely<Database>, handlers: JobHandlers): P
     await finishJob(db, job.id, result ?? null, doneMessage(result));
   } catch (error) {
     const message = error instanceof Error ? error.message : String(error);
-    console.error(`[jobs] job ${job.id} (${job.kind}) failed:`, error);
-    await failJob(db, job.id, message);
+    if (error instanceof RetryLater && job.attempts < retry.maxAttempts) {
+      const delay = retryDelaySeconds(job.attempts, retry);
+      console.warn(`[jobs] job ${job.id} (${job.kind}) will try again in ${describeDelay(delay)}: ${message}`);
+      await retryJobLater(db, job.id, delay, `${message}; trying again in ${describeDelay(delay)} (attempt ${job.attempts} of ${retry.maxAttempts})`);
+    } else {
+      console.error(`[jobs] job ${job.id} (${job.kind}) failed:`, error);
+      await failJob(db, job.id, error instanceof RetryLater ? `${message}; gave up after ${job.attempts} attempts` : message);
+    }
   }
   return (await db.selectFrom("jobs").selectAll().where("id", "=", job.id).executeTakeFirst()) ?? job;
 }

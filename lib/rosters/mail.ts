@@ -7,7 +7,8 @@ import { format } from "date-fns";
 import type { Database } from "@/db/schema";
 import { rosterById, shiftsOfRoster, siteById } from "@/db/queries/rosters";
 import { calendarText } from "@/lib/calendar/ics";
-import { sendMail } from "@/lib/mail/transport";
+import { RetryLater } from "@/lib/jobs/retry";
+import { sendMail, smtpSettings } from "@/lib/mail/transport";
 import { roomsOfScenario, shiftEvents, shiftPlan, shiftWhen, type ShiftForPeople } from "./shift-events";
 
 export interface MailProgress {
@@ -68,14 +69,32 @@ export async function mailPublishedRoster(
       timeZone: zone,
       method: "PUBLISH",
     });
-    await sendMail({
-      to: guard.email,
-      subject: `Your shifts, week of ${week} (version ${roster.version})`,
-      text,
-      attachments: [{ filename: "shifts.ics", content: ics, contentType: "text/calendar; charset=utf-8; method=PUBLISH" }],
-    });
+    try {
+      await sendMail({
+        to: guard.email,
+        subject: `Your shifts, week of ${week} (version ${roster.version})`,
+        text,
+        attachments: [{ filename: "shifts.ics", content: ics, contentType: "text/calendar; charset=utf-8; method=PUBLISH" }],
+      });
+    } catch (error) {
+      if (!isPassingMailFailure(error)) throw error;
+      const { host, port } = smtpSettings();
+      throw new RetryLater(
+        `the mail server at ${host}:${port} did not take the message (${(error as Error).message}); ${sent.length} of ${guards.length} guards mailed so far, the rest follow`,
+      );
+    }
     sent.push(guard.id);
     await progress(done / guards.length, `mailed ${sent.length} of ${guards.length} guards`, { sent });
   }
   return { sent, summary: `mailed ${guards.length} guards their shifts of version ${roster.version}` };
+}
+
+/**
+ * A failure that will likely pass: no connection, a timeout, a dropped socket, or an SMTP 4xx
+ * answer ("transient negative completion", RFC 5321 section 4.2.1). A 5xx answer is permanent.
+ */
+export function isPassingMailFailure(error: unknown): boolean {
+  const { code, responseCode } = (error ?? {}) as { code?: string; responseCode?: number };
+  if (typeof responseCode === "number") return responseCode >= 400 && responseCode < 500;
+  return ["ECONNECTION", "ETIMEDOUT", "ESOCKET", "EDNS", "ECONNREFUSED", "ECONNRESET", "EPIPE", "ETIMEOUT"].includes(code ?? "");
 }
