@@ -118,35 +118,62 @@ export class SweepStatus<T> {
 /**
  * The same skip list for entries that are small integers (0 .. capacity - 1, each present at most
  * once), with its links in typed arrays: no object per entry, so a sweep over many corners makes
- * no garbage. Levels are promoted with probability 1/4 (Pugh 1990), which halves the link arrays.
+ * no garbage, and reset() empties it for the next sweep without allocating unless it must grow.
+ * Levels are promoted with probability 1/4 (Pugh 1990), which halves the link arrays. Searches
+ * start from a finger, the entry the previous search or insertion ended at, and climb only as high
+ * as the distance needs (Pugh 1990, "A skip list cookbook": search with fingers): a sweep whose
+ * consecutive corners meet neighbouring walls (a comb's valleys, left to right at one height)
+ * pays O(1) expected per search, and a far search still O(log n) expected.
  */
 export class IndexSweepStatus {
   // Node id = entry + 1; id 0 is the head, and a link 0 means "none" (the head is never a successor).
-  // Links of level l live at [l * stride, (l + 1) * stride) of one array each way: two allocations
-  // per sweep instead of two per level (which dominated small rooms).
-  private readonly next: Int32Array;
-  private readonly prev: Int32Array;
-  private readonly stride: number;
+  // Links of level l live at [l * stride, (l + 1) * stride) of one array each way.
+  private next = new Int32Array(0);
+  private prev = new Int32Array(0);
+  private heights = new Uint8Array(0);
+  private stride = 0;
+  /** Levels the link arrays have room for. */
+  private levels = 0;
   /** log4(capacity) + 2 levels: enough for O(log n) searches at promotion 1/4 (Pugh 1990). */
-  private readonly maxHeight: number;
-  private readonly heights: Uint8Array;
+  private maxHeight = 0;
+  private capacity = 0;
   private readonly update = new Int32Array(MAX_LEVEL);
   /** The last node on each level (0: none): entries that go to the right end need no search. */
   private readonly tails = new Int32Array(MAX_LEVEL);
   private level = 0;
-  private seed: number;
+  private seed = 1;
   private count = 0;
+  /** The node the last search or insertion ended at (0: the head): where the next search starts. */
+  private finger = 0;
 
   constructor(
-    private readonly capacity: number,
-    seed = 0x9e3779b9,
+    capacity: number,
+    private readonly firstSeed = 0x9e3779b9,
   ) {
-    this.stride = capacity + 1;
-    this.maxHeight = Math.min(16, Math.ceil(Math.log2(capacity + 1) / 2) + 2);
-    this.next = new Int32Array(this.stride * this.maxHeight);
-    this.prev = new Int32Array(this.stride * this.maxHeight);
-    this.heights = new Uint8Array(capacity + 1);
-    this.seed = seed >>> 0 || 1;
+    this.reset(capacity);
+  }
+
+  /** Empty the status for entries 0 .. capacity - 1, keeping its arrays when they are big enough. */
+  reset(capacity: number): void {
+    const maxHeight = Math.min(16, Math.ceil(Math.log2(capacity + 1) / 2) + 2);
+    if (capacity + 1 > this.stride || maxHeight > this.levels) {
+      this.stride = Math.max(capacity + 1, this.stride);
+      this.levels = Math.max(maxHeight, this.levels);
+      this.next = new Int32Array(this.stride * this.levels);
+      this.prev = new Int32Array(this.stride * this.levels);
+      this.heights = new Uint8Array(this.stride);
+    } else {
+      // Entries a sweep that stopped early (an error) left behind, and the head's links.
+      this.heights.fill(0, 0, this.capacity + 1);
+      for (let l = 0; l < this.levels; l++) this.next[l * this.stride] = 0;
+    }
+    this.capacity = capacity;
+    this.maxHeight = maxHeight;
+    this.tails.fill(0);
+    this.level = 0;
+    this.count = 0;
+    this.finger = 0;
+    this.seed = this.firstSeed >>> 0 || 1;
   }
 
   get size(): number {
@@ -165,41 +192,77 @@ export class IndexSweepStatus {
     return height;
   }
 
-  /** The last entry for which `isBefore` holds (monotone along the status), or -1 when none. */
-  lastWhere<Q>(isBefore: (entry: number, probe: Q) => boolean, probe: Q): number {
+  /**
+   * The last node for which `isBefore` holds (0: the head, none holds), searched from the finger:
+   * forward while the next node on the current top level still holds, or backward while the
+   * previous one does not; then down the levels as in Pugh's search.
+   */
+  private lastNode<Q>(isBefore: (entry: number, probe: Q) => boolean, probe: Q): number {
     const next = this.next;
+    const prev = this.prev;
+    const heights = this.heights;
     const stride = this.stride;
-    let x = 0;
-    for (let l = this.level - 1; l >= 0; l--) {
+    let x = this.finger;
+    let l: number;
+    if (x === 0) l = this.level - 1;
+    else if (isBefore(x - 1, probe)) {
+      l = heights[x] - 1;
+      for (let n = next[l * stride + x]; n !== 0 && isBefore(n - 1, probe); n = next[l * stride + x]) {
+        x = n;
+        l = heights[x] - 1;
+      }
+      l--; // the next node on level l does not hold: the answer is below
+    } else {
+      l = heights[x] - 1;
+      for (;;) {
+        const p = prev[l * stride + x];
+        x = p;
+        if (p === 0 || isBefore(p - 1, probe)) break;
+        l = heights[x] - 1;
+      }
+      l--; // the node after x on level l does not hold
+    }
+    for (; l >= 0; l--) {
       const base = l * stride;
       for (let n = next[base + x]; n !== 0 && isBefore(n - 1, probe); n = next[base + x]) x = n;
     }
+    return x;
+  }
+
+  /** The last entry for which `isBefore` holds (monotone along the status), or -1 when none. */
+  lastWhere<Q>(isBefore: (entry: number, probe: Q) => boolean, probe: Q): number {
+    if (this.count === 0) return -1;
+    const x = this.lastNode(isBefore, probe);
+    this.finger = x;
     return x - 1;
   }
 
   /** Insert `entry` right after the entries for which `isBefore` holds (monotone, as in lastWhere). */
   insert<Q>(entry: number, isBefore: (other: number, probe: Q) => boolean, probe: Q): void {
     if (!(entry >= 0 && entry < this.capacity)) throw new RangeError(`sweep status: entry ${entry} outside 0..${this.capacity - 1}`);
+    const id = entry + 1;
+    if (this.heights[id] !== 0) throw new RangeError(`sweep status: entry ${entry} is already in the status`);
     const update = this.update;
     const next = this.next;
     const prev = this.prev;
+    const heights = this.heights;
     const stride = this.stride;
+    const height = this.randomHeight();
+    const known = Math.min(height, this.level);
     const last = this.tails[0];
     if (last !== 0 && isBefore(last - 1, probe)) {
       // After every entry (sweeps often add walls left to right): the tails are the predecessors.
-      for (let l = this.level - 1; l >= 0; l--) update[l] = this.tails[l];
+      for (let l = 0; l < known; l++) update[l] = this.tails[l];
     } else {
-      let x = 0;
-      for (let l = this.level - 1; l >= 0; l--) {
-        const base = l * stride;
-        for (let n = next[base + x]; n !== 0 && isBefore(n - 1, probe); n = next[base + x]) x = n;
+      // The predecessor on level 0, then on each higher level the nearest node back that reaches it.
+      let x = this.count === 0 ? 0 : this.lastNode(isBefore, probe);
+      for (let l = 0; l < known; l++) {
+        while (x !== 0 && heights[x] <= l) x = prev[(l - 1) * stride + x];
         update[l] = x;
       }
     }
-    const height = this.randomHeight();
     while (this.level < height) update[this.level++] = 0;
-    const id = entry + 1;
-    this.heights[id] = height;
+    heights[id] = height;
     for (let l = 0; l < height; l++) {
       const base = l * stride;
       const after = update[l];
@@ -210,16 +273,18 @@ export class IndexSweepStatus {
       if (following !== 0) prev[base + following] = id;
       else this.tails[l] = id;
     }
+    this.finger = id;
     this.count++;
   }
 
   /** Remove an entry that is in the status. */
   remove(entry: number): void {
     const id = entry + 1;
-    const height = this.heights[id];
+    const height = entry >= 0 && entry < this.capacity ? this.heights[id] : 0;
     if (height === 0) throw new RangeError(`sweep status: entry ${entry} is not in the status`);
     const next = this.next;
     const prev = this.prev;
+    if (this.finger === id) this.finger = prev[id];
     for (let l = 0, base = 0; l < height; l++, base += this.stride) {
       const before = prev[base + id];
       const after = next[base + id];
@@ -238,8 +303,9 @@ export class IndexSweepStatus {
   replace(old: number, entry: number): void {
     const from = old + 1;
     const id = entry + 1;
-    const height = this.heights[from];
+    const height = old >= 0 && old < this.capacity ? this.heights[from] : 0;
     if (height === 0) throw new RangeError(`sweep status: entry ${old} is not in the status`);
+    if (!(entry >= 0 && entry < this.capacity)) throw new RangeError(`sweep status: entry ${entry} outside 0..${this.capacity - 1}`);
     if (this.heights[id] !== 0) throw new RangeError(`sweep status: entry ${entry} is already in the status`);
     const next = this.next;
     const prev = this.prev;
@@ -254,6 +320,7 @@ export class IndexSweepStatus {
     }
     this.heights[id] = height;
     this.heights[from] = 0;
+    if (this.finger === from) this.finger = id;
   }
 
   /** All entries left to right (for tests and debugging). */

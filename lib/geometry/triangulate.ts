@@ -6,9 +6,11 @@
 // 2. each piece is triangulated in linear time with a stack (Garey et al. 1978).
 // Ties in y are broken by x (isAbove), every sign comes from exact predicates, and collinear
 // vertices stay corners of strictly positive triangles: n + 2h - 2 triangles in all.
-import type { Point, Room, Triangulation } from "./types";
+// All working arrays live in one reusable TriangulationWork: a call allocates only its result.
+import type { Point, Ring, Room, Triangulation } from "./types";
 import { orientXY } from "./predicates";
 import { IndexSweepStatus } from "./sweep-status";
+import { SweepOrderWork, sortTopDown, sweepsBefore as before } from "./sweep-order";
 
 const enum Corner {
   Start,
@@ -17,37 +19,6 @@ const enum Corner {
   Merge,
   RegularFloorRight,
   RegularFloorLeft,
-}
-
-/** The room's corners as one array with ring links; walls run from a corner to its `next`. */
-interface RoomGraph {
-  points: Point[];
-  next: Int32Array;
-  prev: Int32Array;
-  /** Coordinates as flat arrays (filled by roomGraph): the hot loops read these, not points. */
-  xs?: Float64Array;
-  ys?: Float64Array;
-}
-
-/** The room graph with its flat coordinates, filling them in when a caller built it without. */
-interface FlatGraph {
-  points: Point[];
-  next: Int32Array;
-  prev: Int32Array;
-  xs: Float64Array;
-  ys: Float64Array;
-}
-
-function flatGraph(graph: RoomGraph): FlatGraph {
-  if (graph.xs !== undefined && graph.ys !== undefined) return graph as FlatGraph;
-  const n = graph.points.length;
-  const xs = new Float64Array(n);
-  const ys = new Float64Array(n);
-  for (let v = 0; v < n; v++) {
-    xs[v] = graph.points[v][0];
-    ys[v] = graph.points[v][1];
-  }
-  return { points: graph.points, next: graph.next, prev: graph.prev, xs, ys };
 }
 
 // Shewchuk's first error bound for orient2d (1997), as robust-predicates uses it: a float
@@ -74,28 +45,87 @@ function orientAt(xs: Float64Array, ys: Float64Array, a: number, b: number, c: n
   return orientXY(ax, ay, bx, by, cx, cy);
 }
 
-function roomGraph(room: Room): RoomGraph {
-  const rings = [room.outline, ...room.obstacles];
-  const n = rings.reduce((sum, ring) => sum + ring.length, 0);
-  const points: Point[] = new Array(n);
-  const next = new Int32Array(n);
-  const prev = new Int32Array(n);
-  const xs = new Float64Array(n);
-  const ys = new Float64Array(n);
-  let offset = 0;
-  for (const ring of rings) {
-    const m = ring.length;
-    for (let i = 0; i < m; i++) {
-      const p = ring[i];
-      points[offset + i] = p;
-      xs[offset + i] = p[0];
-      ys[offset + i] = p[1];
-      next[offset + i] = i + 1 === m ? offset : offset + i + 1;
-      prev[offset + i] = i === 0 ? offset + m - 1 : offset + i - 1;
-    }
-    offset += m;
+/**
+ * The working arrays of one triangulation, sized for `capacity` corners. One instance is kept and
+ * reused from call to call (JavaScript runs one call at a time and none re-enters): for rooms of a
+ * hundred corners, allocating twenty small typed arrays per call cost as much as the sweep itself.
+ * Every array is written before it is read within a call, or cleared where a call needs zeros.
+ */
+class TriangulationWork {
+  readonly xs: Float64Array;
+  readonly ys: Float64Array;
+  /** The ring links: wall v runs from corner v to next[v]. */
+  readonly next: Int32Array;
+  readonly prev: Int32Array;
+  readonly order: Int32Array;
+  readonly kind: Uint8Array;
+  readonly helper: Int32Array;
+  /** Diagonals: corners 2i and 2i + 1 are the ends of diagonal i (at most one per corner). */
+  readonly ends: Int32Array;
+  /** Edges around corners with diagonals: around[offset[v] .. offset[v + 1]), counter-clockwise. */
+  readonly offset: Int32Array;
+  readonly around: Int32Array;
+  readonly fill: Int32Array;
+  /** Walked half-edges: ring walls by their first corner, diagonal half-edges by their slot in `around`. */
+  readonly wallDone: Uint8Array;
+  readonly slotDone: Uint8Array;
+  /** One piece at a time: its corners, then (for the stack) in sweep order with their chains. */
+  readonly corners: Int32Array;
+  readonly sorted: Int32Array;
+  readonly chain: Uint8Array;
+  readonly stack: Int32Array;
+  readonly orderWork = new SweepOrderWork();
+  readonly status = new IndexSweepStatus(0);
+
+  constructor(readonly capacity: number) {
+    const n = capacity;
+    this.xs = new Float64Array(n);
+    this.ys = new Float64Array(n);
+    this.next = new Int32Array(n);
+    this.prev = new Int32Array(n);
+    this.order = new Int32Array(n);
+    this.kind = new Uint8Array(n);
+    this.helper = new Int32Array(n);
+    this.ends = new Int32Array(2 * n);
+    this.offset = new Int32Array(n + 1);
+    // At most 2 ring edges per corner with diagonals plus both ends of every diagonal: 4n.
+    this.around = new Int32Array(4 * n);
+    this.fill = new Int32Array(n);
+    this.wallDone = new Uint8Array(n);
+    this.slotDone = new Uint8Array(4 * n);
+    // A piece walks each of its walls once and each of its diagonals at most twice: under 3n.
+    this.corners = new Int32Array(3 * n);
+    this.sorted = new Int32Array(3 * n);
+    this.chain = new Uint8Array(3 * n);
+    this.stack = new Int32Array(3 * n);
   }
-  return { points, next, prev, xs, ys };
+}
+
+let shared = new TriangulationWork(64);
+/** Above this many corners, a much smaller room gives the big arrays back instead of keeping them. */
+const KEEP_LARGE_WORK = 1 << 16;
+
+function workFor(n: number): TriangulationWork {
+  if (n > shared.capacity) shared = new TriangulationWork(Math.max(n, Math.min(2 * shared.capacity, 1 << 20)));
+  else if (shared.capacity > KEEP_LARGE_WORK && 8 * n < shared.capacity) shared = new TriangulationWork(Math.max(64, 2 * n));
+  return shared;
+}
+
+/** Copy a ring's corners into the work arrays from corner `offset` on, linking them in a cycle. */
+function loadRing(ring: Ring, offset: number, work: TriangulationWork, points: Point[]): void {
+  const { xs, ys, next, prev } = work;
+  const m = ring.length;
+  for (let i = 0; i < m; i++) {
+    const p = ring[i];
+    const v = offset + i;
+    points.push(p);
+    xs[v] = p[0];
+    ys[v] = p[1];
+    next[v] = v + 1;
+    prev[v] = v - 1;
+  }
+  next[offset + m - 1] = offset;
+  prev[offset] = offset + m - 1;
 }
 
 /**
@@ -104,31 +134,41 @@ function roomGraph(room: Room): RoomGraph {
  * in order; every triangle is counter-clockwise with strictly positive area.
  */
 export function triangulate(room: Room): Triangulation {
-  const graph = flatGraph(roomGraph(room));
-  const diagonals = sweepDiagonals(graph);
+  const { outline, obstacles } = room;
+  let n = outline.length;
+  for (let r = 0; r < obstacles.length; r++) n += obstacles[r].length;
+  const work = workFor(n);
+  const points: Point[] = [];
+  loadRing(outline, 0, work, points);
+  for (let r = 0, offset = outline.length; r < obstacles.length; offset += obstacles[r].length, r++) {
+    loadRing(obstacles[r], offset, work, points);
+  }
+  const diagonals = sweepDiagonals(work, n);
   const triangles: [number, number, number][] = [];
-  walkPieces(graph, diagonals, (corners, start, m, scratch) =>
-    triangulatePieceAt(graph.xs, graph.ys, corners, start, m, triangles, scratch),
-  );
-  return { points: graph.points, triangles };
+  triangulatePieces(work, n, diagonals, triangles);
+  return { points, triangles };
 }
 
-/** Diagonals as a flat list: corners 2i and 2i + 1 of the list are the ends of diagonal i. */
-interface DiagonalList {
-  ends: Int32Array;
-  count: number;
+// The geometry wallLeftOfCorner reads, set at the start of each sweep: one comparison function for
+// every sweep keeps the status's call site monomorphic and makes no closure per call.
+let sweepXs: Float64Array = new Float64Array(0);
+let sweepYs: Float64Array = new Float64Array(0);
+let sweepNext: Int32Array = new Int32Array(0);
+
+/** Whether the wall from corner `wall` to the next corner of its ring passes left of corner v. */
+function wallLeftOfCorner(wall: number, v: number): boolean {
+  return orientAt(sweepXs, sweepYs, wall, sweepNext[wall], v) > 0;
 }
 
 /**
- * The sweep of step 1: the diagonals that cut the floor into y-monotone pieces. Walls in the
- * status are those with floor to their right (they run downward in ring order); each has a helper,
- * the lowest corner above the sweep line that sees it horizontally.
+ * The sweep of step 1: the diagonals that cut the floor into y-monotone pieces, written to
+ * work.ends; returns how many. Walls in the status are those with floor to their right (they run
+ * downward in ring order); each has a helper, the lowest corner above the sweep line that sees it
+ * horizontally.
  */
-function sweepDiagonals(graph: FlatGraph): DiagonalList {
-  const { next, prev, xs, ys } = graph;
-  const n = xs.length;
-  const order = sweepOrder(xs, ys);
-  const kind = new Uint8Array(n);
+function sweepDiagonals(work: TriangulationWork, n: number): number {
+  const { xs, ys, next, prev, order, kind, helper, ends, status } = work;
+  sortTopDown(xs, ys, n, order, work.orderWork);
   for (let v = 0; v < n; v++) {
     const p = prev[v];
     const q = next[v];
@@ -142,119 +182,72 @@ function sweepDiagonals(graph: FlatGraph): DiagonalList {
   }
 
   // Wall w runs from corner w to next[w]; the status holds such walls, keyed by their first corner.
-  const status = new IndexSweepStatus(n);
-  const helper = new Int32Array(n).fill(-1);
-  // At most one diagonal per split or merge corner and one per end or regular corner below a merge.
-  const ends = new Int32Array(2 * n);
+  status.reset(n);
+  sweepXs = xs;
+  sweepYs = ys;
+  sweepNext = next;
   let count = 0;
-  // One comparison function for the whole sweep (no closure per corner): is this wall left of v?
-  // Coordinates from flat typed arrays: the status search is memory-bound on big rooms.
-  const leftOf = (wall: number, v: number) => orientAt(xs, ys, wall, next[wall], v) > 0;
-  const wallLeftOf = (v: number): number => {
-    const wall = status.lastWhere(leftOf, v);
-    if (wall < 0) throw new Error(`triangulate: no wall left of corner ${v}; is the room valid and normalised?`);
-    return wall;
-  };
-  const insertWall = (v: number) => {
-    status.insert(v, leftOf, v);
-    helper[v] = v;
-  };
-  const removeWall = (wall: number) => status.remove(wall);
-  const join = (a: number, b: number) => {
-    ends[2 * count] = a;
-    ends[2 * count + 1] = b;
-    count++;
-  };
-  const joinIfMerge = (v: number, wall: number) => {
-    if (kind[helper[wall]] === Corner.Merge) join(v, helper[wall]);
-  };
-
   for (let k = 0; k < n; k++) {
     const v = order[k];
     switch (kind[v]) {
       case Corner.Start:
-        insertWall(v);
+        status.insert(v, wallLeftOfCorner, v);
+        helper[v] = v;
         break;
-      case Corner.End:
-        joinIfMerge(v, prev[v]);
-        removeWall(prev[v]);
+      case Corner.End: {
+        const ending = prev[v];
+        if (kind[helper[ending]] === Corner.Merge) count = join(ends, count, v, helper[ending]);
+        status.remove(ending);
         break;
+      }
       case Corner.Split: {
-        const left = wallLeftOf(v);
-        join(v, helper[left]);
+        const left = wallLeftOf(status, v);
+        count = join(ends, count, v, helper[left]);
         helper[left] = v;
-        insertWall(v);
+        status.insert(v, wallLeftOfCorner, v);
+        helper[v] = v;
         break;
       }
       case Corner.Merge: {
-        joinIfMerge(v, prev[v]);
-        removeWall(prev[v]);
-        const left = wallLeftOf(v);
-        joinIfMerge(v, left);
+        const ending = prev[v];
+        if (kind[helper[ending]] === Corner.Merge) count = join(ends, count, v, helper[ending]);
+        status.remove(ending);
+        const left = wallLeftOf(status, v);
+        if (kind[helper[left]] === Corner.Merge) count = join(ends, count, v, helper[left]);
         helper[left] = v;
         break;
       }
-      case Corner.RegularFloorRight:
-        joinIfMerge(v, prev[v]);
+      case Corner.RegularFloorRight: {
+        const ending = prev[v];
+        if (kind[helper[ending]] === Corner.Merge) count = join(ends, count, v, helper[ending]);
         // The wall from v continues the one ending at v: same place in the status, no search.
-        status.replace(prev[v], v);
+        status.replace(ending, v);
         helper[v] = v;
         break;
+      }
       case Corner.RegularFloorLeft: {
-        const left = wallLeftOf(v);
-        joinIfMerge(v, left);
+        const left = wallLeftOf(status, v);
+        if (kind[helper[left]] === Corner.Merge) count = join(ends, count, v, helper[left]);
         helper[left] = v;
         break;
       }
     }
   }
-  return { ends, count };
+  return count;
 }
 
-/** Whether corner a comes before corner b in the top-down sweep (isAbove on coordinate arrays). */
-function before(xs: Float64Array, ys: Float64Array, a: number, b: number): boolean {
-  return ys[a] > ys[b] || (ys[a] === ys[b] && xs[a] < xs[b]);
+/** The wall just left of corner v on the sweep line. */
+function wallLeftOf(status: IndexSweepStatus, v: number): number {
+  const wall = status.lastWhere(wallLeftOfCorner, v);
+  if (wall < 0) throw new Error(`triangulate: no wall left of corner ${v}; is the room valid and normalised?`);
+  return wall;
 }
 
-/**
- * Corner indices in top-down sweep order (y descending, ties by x ascending): a bottom-up merge
- * sort over typed arrays, O(n log n) worst case, several times faster than Array#sort with a
- * comparator on small rooms, where it was the sweep's largest cost.
- */
-export function sweepOrder(xs: Float64Array, ys: Float64Array): Int32Array {
-  const n = xs.length;
-  let a = new Int32Array(n);
-  let b = new Int32Array(n);
-  for (let v = 0; v < n; v++) a[v] = v;
-  const RUN = 12;
-  for (let lo = 0; lo < n; lo += RUN) {
-    const hi = Math.min(lo + RUN, n);
-    for (let i = lo + 1; i < hi; i++) {
-      const w = a[i];
-      let j = i - 1;
-      while (j >= lo && before(xs, ys, w, a[j])) {
-        a[j + 1] = a[j];
-        j--;
-      }
-      a[j + 1] = w;
-    }
-  }
-  for (let width = RUN; width < n; width *= 2) {
-    for (let lo = 0; lo < n; lo += 2 * width) {
-      const mid = Math.min(lo + width, n);
-      const hi = Math.min(lo + 2 * width, n);
-      let i = lo;
-      let j = mid;
-      let k = lo;
-      while (i < mid && j < hi) b[k++] = before(xs, ys, a[j], a[i]) ? a[j++] : a[i++];
-      while (i < mid) b[k++] = a[i++];
-      while (j < hi) b[k++] = a[j++];
-    }
-    const swap = a;
-    a = b;
-    b = swap;
-  }
-  return a;
+/** Record diagonal a-b as number `count`; returns the new count. */
+function join(ends: Int32Array, count: number, a: number, b: number): number {
+  ends[2 * count] = a;
+  ends[2 * count + 1] = b;
+  return count + 1;
 }
 
 /** Half-plane then exact orientation: whether direction centre->a comes before centre->b counter-clockwise from +x. */
@@ -267,34 +260,20 @@ function angularBefore(xs: Float64Array, ys: Float64Array, centre: number, a: nu
   return orientAt(xs, ys, centre, a, b) > 0;
 }
 
-/** Scratch buffers of the piece triangulation, sized for the largest piece. */
-interface PieceScratch {
-  sorted: Int32Array;
-  chain: Uint8Array;
-  stack: Int32Array;
-}
-
 /**
  * The faces cut out by walls and diagonals, each a counter-clockwise cycle of corners: the
- * y-monotone pieces, handed to `visit` one at a time as corners[start .. start + m). Built by
+ * y-monotone pieces, each triangulated (step 2) as soon as it is walked. A face is walked by
  * following, at each corner, the next edge clockwise from the one we arrived by (which keeps the
  * face on the left). Only corners with diagonals need their edges in angular order; at any other
  * corner the walk simply goes on along the ring.
  */
-function walkPieces(
-  graph: FlatGraph,
-  diagonals: DiagonalList,
-  visit: (corners: Int32Array, start: number, m: number, scratch: PieceScratch) => void,
-): void {
-  const { next, prev, xs, ys } = graph;
-  const n = xs.length;
-  const { ends, count } = diagonals;
+function triangulatePieces(work: TriangulationWork, n: number, count: number, out: [number, number, number][]): void {
+  const { xs, ys, next, prev, ends, offset, around, fill, wallDone, slotDone } = work;
   // Around each corner with diagonals: its ring neighbours and diagonal ends, counter-clockwise.
-  const offset = new Int32Array(n + 1);
+  offset.fill(0, 0, n + 1);
   for (let e = 0; e < 2 * count; e++) offset[ends[e] + 1]++;
   for (let v = 0; v < n; v++) offset[v + 1] += offset[v] + (offset[v + 1] > 0 ? 2 : 0);
-  const around = new Int32Array(offset[n]);
-  const fill = new Int32Array(n);
+  fill.fill(0, 0, n);
   for (let d = 0; d < count; d++) {
     const a = ends[2 * d];
     const b = ends[2 * d + 1];
@@ -327,62 +306,57 @@ function walkPieces(
       around.set(sorted, from);
     }
   }
-  // Walked half-edges: ring walls by their first corner, diagonal half-edges by their slot.
-  const wallDone = new Uint8Array(n);
-  const slotDone = new Uint8Array(offset[n]);
-  // Each wall is walked once and each diagonal twice, so the pieces hold n + 2 * count corners.
-  const corners = new Int32Array(n + 2 * count);
-  let longest = 3;
-  const starts: number[] = [];
-  let used = 0;
-  // Walk the face to the left of half-edge from -> to (slot: its place around `from`, or -1 for a wall).
-  const walk = (first: number, firstTo: number, firstSlot: number) => {
-    const start = used;
-    let from = first;
-    let to = firstTo;
-    let slot = firstSlot;
-    for (;;) {
-      if (slot < 0) {
-        if (wallDone[from]) break;
-        wallDone[from] = 1;
-      } else {
-        if (slotDone[slot]) break;
-        slotDone[slot] = 1;
-      }
-      corners[used++] = from;
-      // Next edge: the neighbour of `to` just clockwise from `from`.
-      const lo = offset[to];
-      const hi = offset[to + 1];
-      if (lo === hi) {
-        from = to;
-        to = next[from];
-        slot = -1;
-      } else {
-        let k = lo;
-        while (around[k] !== from) {
-          k++;
-          if (k === hi) throw new Error("triangulate: an edge without its twin; is the room valid?");
-        }
-        k = k === lo ? hi - 1 : k - 1;
-        const w = around[k];
-        from = to;
-        to = w;
-        slot = w === next[from] ? -1 : k;
-      }
-    }
-    const m = used - start;
-    if (m > longest) longest = m;
-    starts.push(start, m);
-  };
+  wallDone.fill(0, 0, n);
+  slotDone.fill(0, 0, offset[n]);
   for (let v = 0; v < n; v++) {
-    if (!wallDone[v]) walk(v, next[v], -1);
+    if (!wallDone[v]) walkPiece(work, v, next[v], -1, out);
     for (let k = offset[v]; k < offset[v + 1]; k++) {
       const w = around[k];
-      if (!slotDone[k] && w !== next[v] && w !== prev[v]) walk(v, w, k);
+      if (!slotDone[k] && w !== next[v] && w !== prev[v]) walkPiece(work, v, w, k, out);
     }
   }
-  const scratch: PieceScratch = { sorted: new Int32Array(longest), chain: new Uint8Array(longest), stack: new Int32Array(longest) };
-  for (let i = 0; i < starts.length; i += 2) visit(corners, starts[i], starts[i + 1], scratch);
+}
+
+/**
+ * Walk the face to the left of half-edge first -> firstTo (firstSlot: its place around `first`,
+ * or -1 for a wall) into work.corners, then triangulate it.
+ */
+function walkPiece(work: TriangulationWork, first: number, firstTo: number, firstSlot: number, out: [number, number, number][]): void {
+  const { next, offset, around, wallDone, slotDone, corners } = work;
+  let m = 0;
+  let from = first;
+  let to = firstTo;
+  let slot = firstSlot;
+  for (;;) {
+    if (slot < 0) {
+      if (wallDone[from]) break;
+      wallDone[from] = 1;
+    } else {
+      if (slotDone[slot]) break;
+      slotDone[slot] = 1;
+    }
+    corners[m++] = from;
+    // Next edge: the neighbour of `to` just clockwise from `from`.
+    const lo = offset[to];
+    const hi = offset[to + 1];
+    if (lo === hi) {
+      from = to;
+      to = next[from];
+      slot = -1;
+    } else {
+      let k = lo;
+      while (around[k] !== from) {
+        k++;
+        if (k === hi) throw new Error("triangulate: an edge without its twin; is the room valid?");
+      }
+      k = k === lo ? hi - 1 : k - 1;
+      const w = around[k];
+      from = to;
+      to = w;
+      slot = w === next[from] ? -1 : k;
+    }
+  }
+  triangulatePiece(work, m, out);
 }
 
 const LEFT = 1;
@@ -393,48 +367,40 @@ const RIGHT = 2;
  * in linear time. The stack holds a chain that turns away from the floor (reflex or straight);
  * a corner on the same chain cuts off triangles only while they are strictly positive, so straight
  * runs of collinear corners wait on the stack and are fanned from the opposite chain later.
- * The piece is corners[start .. start + m), with coordinates from the flat arrays.
+ * The piece is work.corners[0 .. m).
  */
-function triangulatePieceAt(
-  xs: Float64Array,
-  ys: Float64Array,
-  corners: Int32Array,
-  start: number,
-  m: number,
-  out: [number, number, number][],
-  scratch: PieceScratch,
-): void {
+function triangulatePiece(work: TriangulationWork, m: number, out: [number, number, number][]): void {
+  const { xs, ys, corners, sorted, chain, stack } = work;
   if (m < 3) throw new Error(`triangulate: a piece with ${m} corners; is the room valid?`);
   if (m === 3) {
-    pushTriangle(xs, ys, out, corners[start], corners[start + 1], corners[start + 2]);
+    pushTriangle(xs, ys, out, corners[0], corners[1], corners[2]);
     return;
   }
   let top = 0;
   let bottom = 0;
   for (let i = 1; i < m; i++) {
-    const c = corners[start + i];
-    if (before(xs, ys, c, corners[start + top])) top = i;
-    if (before(xs, ys, corners[start + bottom], c)) bottom = i;
+    const c = corners[i];
+    if (before(xs, ys, c, corners[top])) top = i;
+    if (before(xs, ys, corners[bottom], c)) bottom = i;
   }
   // Counter-clockwise from the top runs down the left chain; from the bottom, up the right chain.
-  const { sorted, chain, stack } = scratch;
   let l = top;
   let r = top === 0 ? m - 1 : top - 1;
-  sorted[0] = corners[start + top];
+  sorted[0] = corners[top];
   chain[0] = LEFT | RIGHT;
   for (let k = 1; k < m; k++) {
     const nl = l + 1 === m ? 0 : l + 1;
     // Merge the two descending chains; the bottom corner closes both.
-    if (nl !== bottom && (r === bottom || before(xs, ys, corners[start + nl], corners[start + r]))) {
-      sorted[k] = corners[start + nl];
+    if (nl !== bottom && (r === bottom || before(xs, ys, corners[nl], corners[r]))) {
+      sorted[k] = corners[nl];
       chain[k] = LEFT;
       l = nl;
     } else if (r !== bottom) {
-      sorted[k] = corners[start + r];
+      sorted[k] = corners[r];
       chain[k] = RIGHT;
       r = r === 0 ? m - 1 : r - 1;
     } else {
-      sorted[k] = corners[start + bottom];
+      sorted[k] = corners[bottom];
       chain[k] = LEFT | RIGHT;
     }
   }
