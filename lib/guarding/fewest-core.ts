@@ -15,11 +15,13 @@ import { certifyCoverage, pointInside, ringArea, roomRegion, type CoverageCertif
 import { createWitnessCells } from "./lower-bound-arrangement";
 import { allowedPost, checkConstraints, insideClosedRing, type ConstraintProblem, type PostConstraints } from "./constraints";
 import { independentWitnessBound, type BoundWitness } from "./lower-bound";
-import { solveBinaryProgram } from "./fewest-solver";
+import { solveCover, undominatedRows } from "./fewest-reduce";
 
 export interface FewestOptions extends PostConstraints {
   /** Seconds to spend on the room (default 10); the best certified plan so far is returned. */
   timeLimit?: number;
+  /** Called with a line per step of the search (for profiling; the plan does not depend on it). */
+  onStep?: (message: string) => void;
 }
 
 export interface FewestPlan {
@@ -117,6 +119,7 @@ export function planFewestOver(
   // The search for posts stops at 75% of the time limit so the lower bound always gets its turn.
   const searchDeadline = started + 750 * (options.timeLimit ?? 10);
   const searchSecondsLeft = () => Math.max(0, (searchDeadline - performance.now()) / 1000);
+  const T = (message: string) => options.onStep?.(`${Math.round(performance.now() - started)} ms: ${message}`);
   const sightlines: Sightlines = createSightlines(room, triangulation);
   const problems = checkConstraints(room, sightlines, options);
   const range = options.sightRange && options.sightRange > 0 ? options.sightRange : undefined;
@@ -168,11 +171,7 @@ export function planFewestOver(
     return insideClosedRing(p, w.ring);
   }
   const witnessKeys = new Set<string>();
-  function addWitness(p: Point) {
-    if (witnessKeys.has(key(p))) return;
-    const ring = sight(p);
-    if (!ring) return;
-    witnessKeys.add(key(p));
+  function boxed(point: Point, ring: Ring) {
     let minX = Infinity, minY = Infinity, maxX = -Infinity, maxY = -Infinity;
     for (const [x, y] of ring) {
       minX = Math.min(minX, x);
@@ -180,7 +179,14 @@ export function planFewestOver(
       maxX = Math.max(maxX, x);
       maxY = Math.max(maxY, y);
     }
-    const w = { point: p, ring, minX, minY, maxX, maxY };
+    return { point, ring, minX, minY, maxX, maxY };
+  }
+  function addWitness(p: Point) {
+    if (witnessKeys.has(key(p))) return;
+    const ring = sight(p);
+    if (!ring) return;
+    witnessKeys.add(key(p));
+    const w = boxed(p, ring);
     witnesses.push(w);
     seenBy.push(candidates.flatMap((c, j) => (sees(w, c) ? [j] : [])));
   }
@@ -192,6 +198,7 @@ export function planFewestOver(
   for (const p of wallMidpoints(room)) addWitness(p);
   for (const w of [...witnesses]) addCandidate(w.point);
 
+  T(`setup W=${witnesses.length} C=${candidates.length}`);
   // The starting plan (the guaranteed plan when it obeys the constraints) is the first upper bound.
   let best: { posts: Point[]; certificate: CoverageCertificate } | null = null;
   const starting = [...pinned, ...(options.startingPlan ?? []).filter((p) => allowedPost(p, options))];
@@ -200,6 +207,7 @@ export function planFewestOver(
     if (certificate.covered === 1) best = { posts: starting, certificate };
   }
   let lastTry: { posts: Point[]; certificate: CoverageCertificate } | null = best;
+  T(`starting certified`);
 
   let rounds = 0;
   let stoppedBy: FewestPlan["stoppedBy"] = "time-limit";
@@ -208,22 +216,23 @@ export function planFewestOver(
   function coverRounds(maxRounds: number, timeLeft = searchSecondsLeft) {
     for (let round = 0; round < maxRounds && timeLeft() > 0; round++) {
       rounds++;
-      const answer = solveBinaryProgram({
-        sense: "minimise",
-        weights: candidates.map(() => 1),
-        atLeast: seenBy.map((items) => ({ items, need: Math.min(demand, items.length) })),
+      const answer = solveCover({
+        columns: candidates.length,
+        rows: seenBy.map((items) => ({ items, need: Math.min(demand, items.length) })),
         fixed: pinnedIndex,
         seconds: timeLeft(),
         nodes: WORK_LIMITS.solverNodes,
       });
       if (answer.status === "infeasible" || (answer.status === "stopped" && answer.chosen.length === 0)) break;
       const posts = answer.chosen.map((j) => candidates[j]);
+      T(`cover round ${rounds}: W=${witnesses.length} C=${candidates.length} -> ${posts.length} ${answer.status} ip ${answer.size.rows}x${answer.size.columns}`);
       if (best && posts.length >= best.posts.length && answer.status === "optimal") {
         // The witnesses already force as many posts as the best certified plan: it cannot improve here.
         stoppedBy = "covered";
         break;
       }
       const certificate = certify(posts);
+      T(`certified`);
       lastTry = { posts, certificate };
       if (certificate.covered === 1) {
         if (!best || posts.length < best.posts.length) best = { posts, certificate };
@@ -262,12 +271,21 @@ export function planFewestOver(
       return !ring ? [] : range ? clipToSightRange(ring, p, range, "circumscribed") : [[ring]];
     });
     const pool = [...witnesses, ...packingPoints];
-    const boundWitnesses: BoundWitness[] = pool.map((w) => {
+    // Candidate posts seeing each pooled point: two points seen from one post surely conflict.
+    const words = (candidates.length + 31) >>> 5;
+    const seenFrom = (list: number[]) => {
+      const bits = new Uint32Array(words);
+      for (const c of list) bits[c >>> 5] |= 1 << (c & 31);
+      return bits;
+    };
+    const boundWitnesses: BoundWitness[] = pool.map((w, i) => {
       const seenByPinned = pinnedRegions.filter((region) => region.some((polygon) => insideClosedRing(w.point, polygon[0]))).length;
+      const shape = i < witnesses.length ? witnesses[i] : boxed(w.point, w.ring);
       return {
         point: w.point,
         region: range ? clipToSightRange(w.ring, w.point, range, "circumscribed") : [[w.ring]],
         weight: Math.max(0, demand - seenByPinned),
+        seenFrom: seenFrom(i < witnesses.length ? seenBy[i] : candidates.flatMap((c, j) => (sees(shape, c) ? [j] : []))),
       };
     });
     return independentWitnessBound(boundWitnesses, {
@@ -280,7 +298,9 @@ export function planFewestOver(
   }
 
   coverRounds(WORK_LIMITS.firstRounds);
+  T(`first rounds done best=${best?.posts.length}`);
   let proof = lowerBound();
+  T(`packing bound ${proof.bound}`);
   // Anytime improvement while the bound and the plan disagree: more candidate posts, at the far
   // ends of the witnesses' shadow edges (where the faces of their visibility arrangement meet the
   // walls), then at the middle of every region edge; each time the witnesses grow as needed.
@@ -291,7 +311,9 @@ export function planFewestOver(
         addCandidate(step === 1 ? a : [(a[0] + b[0]) / 2, (a[1] + b[1]) / 2]);
       }
     }
+    T(`step ${step} candidates ${candidates.length}`);
     coverRounds(WORK_LIMITS.laterRounds);
+    T(`step ${step} done best=${best?.posts.length}`);
     // Where the witness-cell bound follows (single cover, nothing pinned) it subsumes a new packing
     // over these witnesses, and the packing is the slower of the two; elsewhere pack again.
     if (demand === 2 || pinned.length > 0) {
@@ -319,7 +341,9 @@ export function planFewestOver(
       { clips: WORK_LIMITS.cellClips, stopAt: deadline },
     );
     for (const w of waiting.slice(0, count)) inOverlay.push(key(w.point));
+    T(`overlay added ${count}/${waiting.length} undominated ${undominatedRows(candidates.length, seenBy).length}/${seenBy.length}`);
     const dual = overlay.solve({ seconds: secondsLeft() + 0.5, nodes: WORK_LIMITS.solverNodes });
+    T(`cell bound ${dual.bound} over ${dual.witnesses} posts ${dual.posts.length}`);
     if (dual.bound > proof.bound) {
       proof = { bound: dual.bound, witnesses: inOverlay.map((k) => k.split(",").map(Number) as Point) };
       boundMethod = "witness cells";

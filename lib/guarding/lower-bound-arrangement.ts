@@ -13,7 +13,7 @@
 import type { Point, Room } from "../geometry/types";
 import { pointInside, type Region } from "../geometry/coverage";
 import { clipPaths, gridScale, growPaths, toPaths, type IntPoint } from "../geometry/coverage-clipper";
-import { solveBinaryProgram } from "./fewest-solver";
+import { solveCover } from "./fewest-reduce";
 
 /** How far regions are grown, in grid cells (a grid cell is 2^-25 of the room's largest coordinate). */
 export const GROW_CELLS = 64;
@@ -38,6 +38,75 @@ function bounds(paths: IntPoint[][]) {
     }
   }
   return { minX, minY, maxX, maxY };
+}
+
+/** How far beyond a cell's bounding box its window reaches, in grid cells (see clipToWindow). */
+const WINDOW_MARGIN = 4;
+
+/**
+ * One ring clipped to an axis-parallel window (Sutherland & Hodgman 1974), crossing points rounded
+ * to the grid. Inside the window it has the ring's winding number up to the rounding, which moves
+ * an edge by at most half a grid cell, and only near the window's sides. The cells of the overlay
+ * lie WINDOW_MARGIN cells inside the window and the regions are grown by GROW_CELLS first, so the
+ * clipped ring still holds every point of the witness's true region that lies in the cell.
+ */
+function clipToWindow(path: IntPoint[], x0: number, y0: number, x1: number, y1: number): IntPoint[] {
+  let points = path;
+  for (let side = 0; side < 4 && points.length > 0; side++) {
+    const inside = (p: IntPoint) => (side === 0 ? p.X >= x0 : side === 1 ? p.X <= x1 : side === 2 ? p.Y >= y0 : p.Y <= y1);
+    const cross = (a: IntPoint, b: IntPoint): IntPoint => {
+      if (side < 2) {
+        const x = side === 0 ? x0 : x1;
+        return { X: x, Y: Math.round(a.Y + ((x - a.X) * (b.Y - a.Y)) / (b.X - a.X)) };
+      }
+      const y = side === 2 ? y0 : y1;
+      return { X: Math.round(a.X + ((y - a.Y) * (b.X - a.X)) / (b.Y - a.Y)), Y: y };
+    };
+    const out: IntPoint[] = [];
+    for (let i = 0; i < points.length; i++) {
+      const a = points[(i + points.length - 1) % points.length], b = points[i];
+      const aIn = inside(a), bIn = inside(b);
+      if (bIn) {
+        if (!aIn) out.push(cross(a, b));
+        out.push(b);
+      } else if (aIn) {
+        out.push(cross(a, b));
+      }
+    }
+    points = out;
+  }
+  return points;
+}
+
+/**
+ * Where a grown region stands against a cell: "outside" and "inside" need no boolean operation;
+ * otherwise the region's rings clipped to the cell's window, for Clipper.
+ */
+function against(grown: IntPoint[][], cell: Cell): "outside" | "inside" | IntPoint[][] {
+  const x0 = cell.minX - WINDOW_MARGIN, y0 = cell.minY - WINDOW_MARGIN, x1 = cell.maxX + WINDOW_MARGIN, y1 = cell.maxY + WINDOW_MARGIN;
+  const pieces: IntPoint[][] = [];
+  for (const path of grown) {
+    const piece = clipToWindow(path, x0, y0, x1, y1);
+    if (piece.length >= 3) pieces.push(piece);
+  }
+  if (pieces.length === 0) return "outside";
+  if (grown.length === 1 && pieces.length === 1) {
+    // A ring that only runs along the window's sides either holds the whole window or nothing of it.
+    const piece = pieces[0];
+    let alongSides = true;
+    let twice = 0;
+    for (let i = 0, j = piece.length - 1; i < piece.length; j = i++) {
+      const a = piece[j], b = piece[i];
+      const sameSide = (a.X === x0 && b.X === x0) || (a.X === x1 && b.X === x1) || (a.Y === y0 && b.Y === y0) || (a.Y === y1 && b.Y === y1);
+      if (!sameSide) {
+        alongSides = false;
+        break;
+      }
+      twice += (a.X - x0) * (b.Y - y0) - (b.X - x0) * (a.Y - y0);
+    }
+    if (alongSides) return Math.abs(twice) / 2 > 0.5 * (x1 - x0) * (y1 - y0) ? "inside" : "outside";
+  }
+  return pieces;
 }
 
 export interface WitnessCells {
@@ -85,14 +154,23 @@ export function createWitnessCells(room: Room): WitnessCells {
           next.push(cell);
           continue;
         }
+        const where = against(grown, cell);
+        if (where === "outside") {
+          next.push(cell);
+          continue;
+        }
+        if (where === "inside") {
+          next.push({ ...cell, sees: [...cell.sees, k] });
+          continue;
+        }
         clips++;
-        const inside = clipPaths("intersection", cell.paths, grown);
+        const inside = clipPaths("intersection", cell.paths, where);
         if (inside.length === 0) {
           next.push(cell);
           continue;
         }
         next.push({ paths: inside, sees: [...cell.sees, k], ...bounds(inside) });
-        const outside = clipPaths("difference", cell.paths, grown);
+        const outside = clipPaths("difference", cell.paths, where);
         if (outside.length) next.push({ paths: outside, sees: cell.sees, ...bounds(outside) });
       }
       if (!finished) break;
@@ -117,10 +195,9 @@ export function createWitnessCells(room: Room): WitnessCells {
     const holding: number[][] = Array.from({ length: used }, () => []);
     maximal.forEach((set, j) => set.forEach((w) => holding[w].push(j)));
     if (holding.some((h) => h.length === 0)) return { bound: 0, witnesses: used, posts: [] };
-    const answer = solveBinaryProgram({
-      sense: "minimise",
-      weights: maximal.map(() => 1),
-      atLeast: holding.map((items) => ({ items, need: 1 })),
+    const answer = solveCover({
+      columns: maximal.length,
+      rows: holding.map((items) => ({ items, need: 1 })),
       seconds: Math.max(0.1, limits.seconds),
       nodes: limits.nodes,
     });

@@ -25,6 +25,17 @@ export interface BoundWitness {
   region: Region;
   /** Posts this witness still needs from outside the pinned ones (1, or 2 for double cover). */
   weight: number;
+  /**
+   * Optional bitset of sample posts known to see this witness. Two witnesses seen from one post
+   * conflict for sure, which spares the geometric test; a missed bit only costs that test.
+   */
+  seenFrom?: Uint32Array;
+}
+
+function shareAPost(a: Uint32Array | undefined, b: Uint32Array | undefined): boolean {
+  if (!a || !b) return false;
+  for (let i = 0, n = Math.min(a.length, b.length); i < n; i++) if ((a[i] & b[i]) !== 0) return true;
+  return false;
 }
 
 interface Shape {
@@ -137,7 +148,9 @@ export function independentWitnessBound(
     if (useful.length >= maxWitnesses || performance.now() > stopAt) break;
     const shape = shapeOf(w.region);
     const i = useful.length;
-    for (let j = 0; j < i; j++) if (regionsMeet(shapes[j], shape, margin)) conflicts.push([j, i]);
+    for (let j = 0; j < i; j++) {
+      if (shareAPost(useful[j].seenFrom, w.seenFrom) || regionsMeet(shapes[j], shape, margin)) conflicts.push([j, i]);
+    }
     useful.push(w);
     shapes.push(shape);
   }

@@ -1,0 +1,248 @@
+// Set-cover reductions before every integer program of the fewest plan (the classic preprocessing
+// of set covering: Garfinkel & Nemhauser, "Integer Programming", Wiley 1972, ch. 8; used for the art
+// gallery problem by Tozoni, de Rezende & de Souza, ACM TOMS 2016). Rows are witnesses (each needs
+// `need` chosen columns among its items), columns are candidate posts of unit weight. Repeated
+// to a fixpoint:
+// 1. Forced columns: a row with exactly `need` items takes all of them (no other way to meet it).
+// 2. Row domination: if row a's items are a subset of row b's and need(a) >= need(b), every
+//    choice that meets a meets b, so b is dropped (of two equal rows the later one goes).
+// 3. Column domination: if column j's rows are a subset of column k's rows and every row j meets
+//    needs only one post, any plan with j stays valid and no larger with k in j's place (or with j
+//    simply left out when k is already in), so j is dropped (of two equal columns the later one goes).
+// Each rule keeps at least one optimal plan of the original program, so the reduced optimum plus
+// the forced columns is the original optimum (tests/sightlines/fewest-reduce.test.ts checks this
+// against exhaustive search on random programs).
+import { solveBinaryProgram, type BinaryAnswer } from "./fewest-solver";
+
+export interface CoverRow {
+  items: number[];
+  need: number;
+}
+
+export interface ReducedCover {
+  /** No choice of columns meets every row. */
+  infeasible: boolean;
+  /** Columns every reduced plan takes (including the fixed ones). */
+  forced: number[];
+  /** What is left, in reduced column numbers. */
+  rows: CoverRow[];
+  /** Reduced column number -> original column. */
+  columns: number[];
+}
+
+class Bits {
+  readonly words: Uint32Array;
+  constructor(size: number) {
+    this.words = new Uint32Array((size + 31) >>> 5);
+  }
+  set(i: number) {
+    this.words[i >>> 5] |= 1 << (i & 31);
+  }
+  /** Whether every bit of this is also in `other`. */
+  within(other: Bits): boolean {
+    const a = this.words, b = other.words;
+    for (let i = 0; i < a.length; i++) if ((a[i] & ~b[i]) !== 0) return false;
+    return true;
+  }
+}
+
+/** Reduces a unit-weight covering program; `fixed` columns are taken first. */
+export function reduceCover(columnCount: number, rows: CoverRow[], fixed: number[] = []): ReducedCover {
+  const rowCount = rows.length;
+  const need = rows.map((r) => r.need);
+  const rowAlive = new Uint8Array(rowCount).fill(1);
+  const colAlive = new Uint8Array(columnCount).fill(1);
+  const colRows: number[][] = Array.from({ length: columnCount }, () => []);
+  const rowItems: number[][] = rows.map((r, i) => {
+    const items = [...new Set(r.items)].filter((c) => c >= 0 && c < columnCount).sort((a, b) => a - b);
+    for (const c of items) colRows[c].push(i);
+    return items;
+  });
+  const forced: number[] = [];
+  const take = (c: number) => {
+    if (!colAlive[c]) return;
+    colAlive[c] = 0;
+    forced.push(c);
+    for (const r of colRows[c]) if (rowAlive[r]) need[r]--;
+  };
+  for (const c of fixed) if (c >= 0 && c < columnCount) take(c);
+  let infeasible = false;
+
+  const liveItems = (r: number) => rowItems[r].filter((c) => colAlive[c]);
+  const liveRows = (c: number) => colRows[c].filter((r) => rowAlive[r]);
+  for (let changed = true; changed && !infeasible; ) {
+    changed = false;
+    // Rows already met go; rows with no slack force their items.
+    for (let r = 0; r < rowCount; r++) {
+      if (!rowAlive[r]) continue;
+      if (need[r] <= 0) {
+        rowAlive[r] = 0;
+        changed = true;
+        continue;
+      }
+      const items = liveItems(r);
+      if (items.length < need[r]) {
+        infeasible = true;
+        break;
+      }
+      if (items.length === need[r]) {
+        for (const c of items) take(c);
+        rowAlive[r] = 0;
+        changed = true;
+      }
+    }
+    if (infeasible) break;
+    // Row domination: a row whose items contain another row's (with no larger need) is implied.
+    const rowBits = new Map<number, Bits>();
+    const itemsOf = new Map<number, number[]>();
+    for (let r = 0; r < rowCount; r++) {
+      if (!rowAlive[r]) continue;
+      if (need[r] <= 0) {
+        rowAlive[r] = 0; // met by a column forced later in this pass
+        continue;
+      }
+      const items = liveItems(r);
+      if (items.length < need[r]) {
+        infeasible = true;
+        break;
+      }
+      const bits = new Bits(columnCount);
+      for (const c of items) bits.set(c);
+      rowBits.set(r, bits);
+      itemsOf.set(r, items);
+    }
+    if (infeasible) break;
+    const rowOrder = [...rowBits.keys()].sort((a, b) => itemsOf.get(a)!.length - itemsOf.get(b)!.length || a - b);
+    for (const a of rowOrder) {
+      if (!rowAlive[a]) continue;
+      const items = itemsOf.get(a)!;
+      // Any row containing a's items contains its rarest column.
+      let rarest = items[0], fewest = Infinity;
+      for (const c of items) {
+        const n = colRows[c].length;
+        if (n < fewest) {
+          fewest = n;
+          rarest = c;
+        }
+      }
+      for (const b of colRows[rarest]) {
+        if (b === a || !rowAlive[b] || need[b] > need[a]) continue;
+        const bItems = itemsOf.get(b)!;
+        if (bItems.length < items.length || (bItems.length === items.length && need[b] === need[a] && b < a)) continue;
+        if (rowBits.get(a)!.within(rowBits.get(b)!)) {
+          rowAlive[b] = 0;
+          changed = true;
+        }
+      }
+    }
+    // Column domination, for columns whose rows all need one post.
+    const colBits = new Map<number, Bits>();
+    const rowsOf = new Map<number, number[]>();
+    for (let c = 0; c < columnCount; c++) {
+      if (!colAlive[c]) continue;
+      const live = liveRows(c);
+      if (live.length === 0) {
+        colAlive[c] = 0; // sees nothing still needed
+        changed = true;
+        continue;
+      }
+      const bits = new Bits(rowCount);
+      for (const r of live) bits.set(r);
+      colBits.set(c, bits);
+      rowsOf.set(c, live);
+    }
+    const colOrder = [...colBits.keys()].sort((a, b) => rowsOf.get(a)!.length - rowsOf.get(b)!.length || b - a);
+    for (const j of colOrder) {
+      const live = rowsOf.get(j)!;
+      if (live.some((r) => need[r] !== 1)) continue;
+      let rarest = live[0], fewest = Infinity;
+      for (const r of live) {
+        const n = rowItems[r].length;
+        if (n < fewest) {
+          fewest = n;
+          rarest = r;
+        }
+      }
+      for (const k of rowItems[rarest]) {
+        if (k === j || !colAlive[k]) continue;
+        const kRows = rowsOf.get(k)!;
+        // Of two equal columns the later one goes.
+        if (kRows.length < live.length || (kRows.length === live.length && k > j)) continue;
+        if (colBits.get(j)!.within(colBits.get(k)!)) {
+          colAlive[j] = 0;
+          changed = true;
+          break;
+        }
+      }
+    }
+  }
+  if (infeasible) return { infeasible, forced, rows: [], columns: [] };
+  const columns: number[] = [];
+  const reducedIndex = new Map<number, number>();
+  const reducedRows: CoverRow[] = [];
+  for (let r = 0; r < rowCount; r++) {
+    if (!rowAlive[r] || need[r] <= 0) continue;
+    const items = liveItems(r).map((c) => {
+      if (!reducedIndex.has(c)) {
+        reducedIndex.set(c, columns.length);
+        columns.push(c);
+      }
+      return reducedIndex.get(c)!;
+    });
+    reducedRows.push({ items, need: need[r] });
+  }
+  return { infeasible, forced, rows: reducedRows, columns };
+}
+
+/**
+ * The fewest columns meeting every row (unit weights), reduced first and the rest solved by HiGHS.
+ * `size` reports the program HiGHS saw.
+ */
+export function solveCover(problem: {
+  columns: number;
+  rows: CoverRow[];
+  fixed?: number[];
+  seconds: number;
+  nodes?: number;
+}): BinaryAnswer & { size: { rows: number; columns: number } } {
+  const reduced = reduceCover(problem.columns, problem.rows, problem.fixed);
+  if (reduced.infeasible) return { status: "infeasible", chosen: [], size: { rows: 0, columns: 0 } };
+  const size = { rows: reduced.rows.length, columns: reduced.columns.length };
+  if (reduced.rows.length === 0) return { status: "optimal", chosen: [...reduced.forced].sort((a, b) => a - b), size };
+  const answer = solveBinaryProgram({
+    sense: "minimise",
+    weights: reduced.columns.map(() => 1),
+    atLeast: reduced.rows,
+    seconds: problem.seconds,
+    nodes: problem.nodes,
+  });
+  if (answer.status === "infeasible") return { ...answer, size };
+  const chosen = [...reduced.forced, ...answer.chosen.map((j) => reduced.columns[j])].sort((a, b) => a - b);
+  return { status: answer.status, chosen, size };
+}
+
+/**
+ * Rows no other row dominates (rule 2 alone, no columns removed): the witnesses that still matter
+ * when the columns are only a sample of all possible posts. Of equal rows the first is kept.
+ */
+export function undominatedRows(columnCount: number, rows: number[][]): number[] {
+  const bits = rows.map((items) => {
+    const b = new Bits(columnCount);
+    for (const c of items) b.set(c);
+    return b;
+  });
+  const colRows: number[][] = Array.from({ length: columnCount }, () => []);
+  rows.forEach((items, r) => items.forEach((c) => colRows[c].push(r)));
+  const alive = new Uint8Array(rows.length).fill(1);
+  const order = rows.map((_, r) => r).sort((a, b) => rows[a].length - rows[b].length || a - b);
+  for (const a of order) {
+    if (!alive[a] || rows[a].length === 0) continue;
+    let rarest = rows[a][0];
+    for (const c of rows[a]) if (colRows[c].length < colRows[rarest].length) rarest = c;
+    for (const b of colRows[rarest]) {
+      if (b === a || !alive[b] || rows[b].length < rows[a].length) continue;
+      if (bits[a].within(bits[b])) alive[b] = 0;
+    }
+  }
+  return rows.flatMap((_, r) => (alive[r] ? [r] : []));
+}
