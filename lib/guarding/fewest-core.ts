@@ -14,8 +14,8 @@ import { clipToSightRange, discCorners } from "../geometry/visibility-range";
 import { certifyCoverage, pointInside, ringArea, roomRegion, type CoverageCertificate, type Region } from "../geometry/coverage";
 import { createWitnessCells } from "./lower-bound-arrangement";
 import { allowedPost, checkConstraints, insideClosedRing, type ConstraintProblem, type PostConstraints } from "./constraints";
-import { independentWitnessBound, type BoundWitness } from "./lower-bound";
-import { solveCover, undominatedRows } from "./fewest-reduce";
+import { independentWitnessBound, type BoundWitness, type LowerBound } from "./lower-bound";
+import { solveCover } from "./fewest-reduce";
 
 export interface FewestOptions extends PostConstraints {
   /** Seconds to spend on the room (default 10); the best certified plan so far is returned. */
@@ -69,7 +69,7 @@ export const WORK_LIMITS = {
   /** Boolean operations the witness-cell overlay may spend per bound. */
   cellClips: 40000,
   /** Rounds of witness-cell bound and its posts as candidates (the overlay grows each round). */
-  cellRounds: 10,
+  cellRounds: 100,
 };
 
 /** Corners of the room where the floor turns less than 180°: the hardest places to see. */
@@ -299,76 +299,89 @@ export function planFewestOver(
 
   coverRounds(WORK_LIMITS.firstRounds);
   T(`first rounds done best=${best?.posts.length}`);
-  let proof = lowerBound();
-  T(`packing bound ${proof.bound}`);
-  // Anytime improvement while the bound and the plan disagree: more candidate posts, at the far
-  // ends of the witnesses' shadow edges (where the faces of their visibility arrangement meet the
-  // walls), then at the middle of every region edge; each time the witnesses grow as needed.
-  for (let step = 1; step <= 2 && best && proof.bound < best.posts.length && searchSecondsLeft() > 0; step++) {
-    for (const w of [...witnesses]) {
-      for (let i = 0; i < w.ring.length; i++) {
-        const a = w.ring[i], b = w.ring[(i + 1) % w.ring.length];
-        addCandidate(step === 1 ? a : [(a[0] + b[0]) / 2, (a[1] + b[1]) / 2]);
+  // Single cover with nothing pinned: the witness-cell bound (lower-bound-arrangement.ts), which
+  // subsumes any packing of the same witnesses. Otherwise independent witnesses (lower-bound.ts).
+  const cellsApply = demand === 1 && pinned.length === 0;
+  let proof: LowerBound = { bound: pinned.length, witnesses: [] };
+  let boundMethod: FewestPlan["boundMethod"] = "independent witnesses";
+  if (!cellsApply) {
+    proof = lowerBound();
+    T(`packing bound ${proof.bound}`);
+    // Anytime improvement while the bound and the plan disagree: more candidate posts, at the far
+    // ends of the witnesses' shadow edges (where the faces of their visibility arrangement meet the
+    // walls), then at the middle of every region edge; each time the witnesses grow as needed.
+    for (let step = 1; step <= 2 && best && proof.bound < best.posts.length && searchSecondsLeft() > 0; step++) {
+      for (const w of [...witnesses]) {
+        for (let i = 0; i < w.ring.length; i++) {
+          const a = w.ring[i], b = w.ring[(i + 1) % w.ring.length];
+          addCandidate(step === 1 ? a : [(a[0] + b[0]) / 2, (a[1] + b[1]) / 2]);
+        }
       }
-    }
-    T(`step ${step} candidates ${candidates.length}`);
-    coverRounds(WORK_LIMITS.laterRounds);
-    T(`step ${step} done best=${best?.posts.length}`);
-    // Where the witness-cell bound follows (single cover, nothing pinned) it subsumes a new packing
-    // over these witnesses, and the packing is the slower of the two; elsewhere pack again.
-    if (demand === 2 || pinned.length > 0) {
+      coverRounds(WORK_LIMITS.laterRounds);
       const again = lowerBound();
       if (again.bound > proof.bound) proof = again;
     }
-  }
-  // The stronger bound (witness cells, lower-bound-arrangement.ts) when the packing falls short.
-  let boundMethod: FewestPlan["boundMethod"] = "independent witnesses";
-  // Tozoni et al.'s step when they still disagree: a post in each cell the bound chose is a new
-  // candidate; if those posts see the room the plan meets the bound, else their gaps add witnesses.
-  // One overlay for all rounds: each round adds only the witnesses it has not seen yet.
-  const overlay = createWitnessCells(room);
-  const inOverlay: string[] = [];
-  const regionAt = (p: Point, ring: Ring): Region => (range ? clipToSightRange(ring, p, range, "circumscribed") : [[ring]]);
-  for (let round = 0; round < WORK_LIMITS.cellRounds && best && proof.bound < best.posts.length && demand === 1 && pinned.length === 0 && secondsLeft() > 0; round++) {
-    // The packing's witnesses first (they already force proof.bound posts), then small regions.
-    const added = new Set(inOverlay);
-    const first = proof.witnesses.filter((p) => !added.has(key(p))).map((p) => ({ point: p, ring: sight(p)! })).filter((w) => w.ring);
-    const firstKeys = new Set(first.map((w) => key(w.point)));
-    const rest = witnesses.filter((w) => !added.has(key(w.point)) && !firstKeys.has(key(w.point))).sort((a, b) => Math.abs(ringArea(a.ring)) - Math.abs(ringArea(b.ring)));
-    const waiting = [...first, ...rest];
-    const count = overlay.add(
-      waiting.map((w) => regionAt(w.point, w.ring)),
-      { clips: WORK_LIMITS.cellClips, stopAt: deadline },
-    );
-    for (const w of waiting.slice(0, count)) inOverlay.push(key(w.point));
-    T(`overlay added ${count}/${waiting.length} undominated ${undominatedRows(candidates.length, seenBy).length}/${seenBy.length}`);
-    const dual = overlay.solve({ seconds: secondsLeft() + 0.5, nodes: WORK_LIMITS.solverNodes });
-    T(`cell bound ${dual.bound} over ${dual.witnesses} posts ${dual.posts.length}`);
-    if (dual.bound > proof.bound) {
-      proof = { bound: dual.bound, witnesses: inOverlay.map((k) => k.split(",").map(Number) as Point) };
-      boundMethod = "witness cells";
+  } else if (best) {
+    // Tozoni et al.'s loop over one overlay that grows with the witnesses it needs (row generation):
+    // the bound over a subset S of the witnesses is a proof by itself, since every witness set gives
+    // one. The bound's posts (a point in each chosen cell) are checked against all witnesses; those
+    // they miss join S, because with them the bound may rise. When the posts see every witness, S
+    // gives the bound of all of them; then the posts are certified: if they see the room the plan
+    // meets the bound, else their gaps become witnesses and posts, and the cover rounds go again.
+    const overlay = createWitnessCells(room);
+    const inOverlay: Point[] = [];
+    const inS = new Set<string>();
+    const regionAt = (p: Point, ring: Ring): Region => (range ? clipToSightRange(ring, p, range, "circumscribed") : [[ring]]);
+    // Seeds: a greedy packing by the candidates (fewest-seen witnesses first, none sharing a post).
+    const words = (candidates.length + 31) >>> 5;
+    const taken = new Uint32Array(words);
+    let waiting: number[] = [];
+    for (const i of witnesses.map((_, i) => i).sort((a, b) => seenBy[a].length - seenBy[b].length || a - b)) {
+      if (seenBy[i].some((c) => (taken[c >>> 5] & (1 << (c & 31))) !== 0)) continue;
+      for (const c of seenBy[i]) taken[c >>> 5] |= 1 << (c & 31);
+      waiting.push(i);
     }
-    if (proof.bound >= best.posts.length) break;
-    const before = candidates.length;
-    const witnessesBefore = witnesses.length;
-    for (const p of dual.posts) addCandidate(p);
-    // The cells' own posts: if they see the room the plan meets the bound; else their gaps add witnesses.
-    const cellPosts = dual.posts.filter((p) => candidateKeys.has(key(p)));
-    if (dual.bound > 0 && cellPosts.length === dual.posts.length && cellPosts.length < best.posts.length) {
-      const certificate = certify(cellPosts);
-      if (certificate.covered === 1) {
-        best = { posts: cellPosts, certificate };
+    for (let round = 0; round < WORK_LIMITS.cellRounds && proof.bound < best.posts.length && secondsLeft() > 0; round++) {
+      const regions = waiting.map((i) => regionAt(witnesses[i].point, witnesses[i].ring));
+      const count = overlay.add(regions, { clips: WORK_LIMITS.cellClips, stopAt: deadline });
+      for (const i of waiting.slice(0, count)) {
+        inOverlay.push(witnesses[i].point);
+        inS.add(key(witnesses[i].point));
+      }
+      const complete = count === waiting.length;
+      const dual = overlay.solve({ seconds: secondsLeft() + 0.5, nodes: WORK_LIMITS.solverNodes });
+      T(`cells round ${round}: S ${inOverlay.length}/${witnesses.length} (added ${count}/${waiting.length}), bound ${dual.bound}, plan ${best.posts.length}`);
+      if (dual.bound > proof.bound) {
+        proof = { bound: dual.bound, witnesses: [...inOverlay] };
+        boundMethod = "witness cells";
+      }
+      if (proof.bound >= best.posts.length || dual.posts.length === 0 || !complete) break;
+      // Row generation: the witnesses the bound's posts miss.
+      const missed = witnesses.flatMap((w, i) => (!inS.has(key(w.point)) && !dual.posts.some((p) => sees(w, p)) ? [i] : []));
+      if (missed.length > 0) {
+        waiting = missed.sort((a, b) => Math.abs(ringArea(witnesses[a].ring)) - Math.abs(ringArea(witnesses[b].ring)) || a - b);
         continue;
       }
-      for (const polygon of certificate.uncovered) {
-        const p = pointInside(polygon);
-        addWitness(p);
-        addCandidate(p);
+      // The posts see every witness: certify them against the whole room.
+      for (const p of dual.posts) addCandidate(p);
+      const cellPosts = dual.posts.filter((p) => candidateKeys.has(key(p)));
+      const witnessesBefore = witnesses.length;
+      if (cellPosts.length === dual.posts.length && cellPosts.length < best.posts.length) {
+        const certificate = certify(cellPosts);
+        if (certificate.covered === 1) {
+          best = { posts: cellPosts, certificate };
+          break;
+        }
+        for (const polygon of certificate.uncovered) {
+          const p = pointInside(polygon);
+          addWitness(p);
+          addCandidate(p);
+        }
       }
+      coverRounds(WORK_LIMITS.laterRounds, secondsLeft);
+      waiting = witnesses.flatMap((w, i) => (!inS.has(key(w.point)) && !dual.posts.some((p) => sees(w, p)) ? [i] : []));
+      if (waiting.length === 0 && witnesses.length === witnessesBefore) break;
     }
-    const complete = count === waiting.length;
-    if (candidates.length === before && witnesses.length === witnessesBefore && complete) break;
-    coverRounds(WORK_LIMITS.laterRounds, secondsLeft);
   }
 
   const chosen = best ?? lastTry;
