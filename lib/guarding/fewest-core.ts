@@ -209,6 +209,9 @@ export function planFewestOver(
   let lastTry: { posts: Point[]; certificate: CoverageCertificate } | null = best;
   T(`starting certified`);
 
+  // The best lower bound so far and which proof gave it.
+  let proof: LowerBound = { bound: pinned.length, witnesses: [] };
+  let boundMethod: FewestPlan["boundMethod"] = "independent witnesses";
   let rounds = 0;
   let stoppedBy: FewestPlan["stoppedBy"] = "time-limit";
   const pinnedIndex = pinned.map((p) => candidateKeys.get(key(p))!).filter((i) => i !== undefined);
@@ -216,16 +219,24 @@ export function planFewestOver(
   function coverRounds(maxRounds: number, timeLeft = searchSecondsLeft) {
     for (let round = 0; round < maxRounds && timeLeft() > 0; round++) {
       rounds++;
+      const ipStart = performance.now();
       const answer = solveCover({
         columns: candidates.length,
         rows: seenBy.map((items) => ({ items, need: Math.min(demand, items.length) })),
         fixed: pinnedIndex,
+        // Only plans better than the best certified one are of use (the cut-off speeds HiGHS up).
+        atMostColumns: best ? best.posts.length - 1 : undefined,
         seconds: timeLeft(),
         nodes: WORK_LIMITS.solverNodes,
       });
-      if (answer.status === "infeasible" || (answer.status === "stopped" && answer.chosen.length === 0)) break;
+      T(`cover round ${rounds}: W=${witnesses.length} C=${candidates.length} -> ${answer.chosen.length} ${answer.status} ip ${answer.size.rows}x${answer.size.columns} in ${Math.round(performance.now() - ipStart)} ms`);
+      if (answer.status === "infeasible") {
+        // No plan over these candidates beats the best certified one.
+        if (best) stoppedBy = "covered";
+        break;
+      }
+      if (answer.status === "stopped" && answer.chosen.length === 0) break;
       const posts = answer.chosen.map((j) => candidates[j]);
-      T(`cover round ${rounds}: W=${witnesses.length} C=${candidates.length} -> ${posts.length} ${answer.status} ip ${answer.size.rows}x${answer.size.columns}`);
       if (best && posts.length >= best.posts.length && answer.status === "optimal") {
         // The witnesses already force as many posts as the best certified plan: it cannot improve here.
         stoppedBy = "covered";
@@ -302,8 +313,6 @@ export function planFewestOver(
   // Single cover with nothing pinned: the witness-cell bound (lower-bound-arrangement.ts), which
   // subsumes any packing of the same witnesses. Otherwise independent witnesses (lower-bound.ts).
   const cellsApply = demand === 1 && pinned.length === 0;
-  let proof: LowerBound = { bound: pinned.length, witnesses: [] };
-  let boundMethod: FewestPlan["boundMethod"] = "independent witnesses";
   if (!cellsApply) {
     proof = lowerBound();
     T(`packing bound ${proof.bound}`);
@@ -341,6 +350,7 @@ export function planFewestOver(
       for (const c of seenBy[i]) taken[c >>> 5] |= 1 << (c & 31);
       waiting.push(i);
     }
+    let stalls = 0;
     for (let round = 0; round < WORK_LIMITS.cellRounds && proof.bound < best.posts.length && secondsLeft() > 0; round++) {
       const regions = waiting.map((i) => regionAt(witnesses[i].point, witnesses[i].ring));
       const count = overlay.add(regions, { clips: WORK_LIMITS.cellClips, stopAt: deadline });
@@ -364,6 +374,20 @@ export function planFewestOver(
       }
       // The posts see every witness: certify them against the whole room.
       for (const p of dual.posts) addCandidate(p);
+      // When this keeps failing, more candidates: the corners of the witnesses' regions (the ends
+      // of their shadow edges, where optimal posts of orthogonal rooms stand), later the middles
+      // of their edges.
+      stalls++;
+      if (stalls === 2 || stalls === 4) {
+        for (const w of [...witnesses]) {
+          for (let i = 0; i < w.ring.length; i++) {
+            const a = w.ring[i], b = w.ring[(i + 1) % w.ring.length];
+            addCandidate(stalls === 2 ? a : [(a[0] + b[0]) / 2, (a[1] + b[1]) / 2]);
+          }
+        }
+      }
+      // Tozoni et al.'s candidates: a point in every light cell of the overlay.
+      for (const p of dual.lightPosts()) addCandidate(p);
       const cellPosts = dual.posts.filter((p) => candidateKeys.has(key(p)));
       const witnessesBefore = witnesses.length;
       if (cellPosts.length === dual.posts.length && cellPosts.length < best.posts.length) {

@@ -202,6 +202,12 @@ export function solveCover(problem: {
   columns: number;
   rows: CoverRow[];
   fixed?: number[];
+  /**
+   * Only plans of at most this many columns are wanted (one fewer than the best plan known): one
+   * more row, which lets the search stop as soon as it proves there is none. Infeasible then means
+   * no plan this small exists. The reductions keep an optimal plan, so they keep this answer too.
+   */
+  atMostColumns?: number;
   seconds: number;
   nodes?: number;
 }): BinaryAnswer & { size: { rows: number; columns: number } } {
@@ -209,10 +215,13 @@ export function solveCover(problem: {
   if (reduced.infeasible) return { status: "infeasible", chosen: [], size: { rows: 0, columns: 0 } };
   const size = { rows: reduced.rows.length, columns: reduced.columns.length };
   if (reduced.rows.length === 0) return { status: "optimal", chosen: [...reduced.forced].sort((a, b) => a - b), size };
+  const room = problem.atMostColumns === undefined ? Infinity : problem.atMostColumns - reduced.forced.length;
+  if (room < 0 || (room === 0 && reduced.rows.length > 0)) return { status: "infeasible", chosen: [], size };
   const answer = solveBinaryProgram({
     sense: "minimise",
     weights: reduced.columns.map(() => 1),
     atLeast: reduced.rows,
+    atMost: room < reduced.columns.length ? [{ items: reduced.columns.map((_, j) => j), most: room }] : [],
     seconds: problem.seconds,
     nodes: problem.nodes,
   });

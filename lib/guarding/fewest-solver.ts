@@ -30,6 +30,8 @@ export function solveBinaryProgram(problem: {
   weights: number[];
   atLeast?: { items: number[]; need: number }[];
   atMostOne?: number[][];
+  /** `sum(items) <= most`. */
+  atMost?: { items: number[]; most: number }[];
   fixed?: number[];
   /** Wall-clock safety net; `nodes` is the deterministic limit that normally ends a hard search. */
   seconds: number;
@@ -47,6 +49,7 @@ export function solveBinaryProgram(problem: {
     lines.push(` c${row++}: ${items.map((i) => `x${i}`).join(" + ")} >= ${need}`);
   }
   for (const items of problem.atMostOne ?? []) lines.push(` c${row++}: ${items.map((i) => `x${i}`).join(" + ")} <= 1`);
+  for (const { items, most } of problem.atMost ?? []) lines.push(` c${row++}: ${items.map((i) => `x${i}`).join(" + ")} <= ${most}`);
   if (row === 0) lines.push(" c0: x0 >= 0");
   const fixed = new Set(problem.fixed ?? []);
   if (fixed.size) {

@@ -118,8 +118,12 @@ export interface WitnessCells {
    * Returns how many were added.
    */
   add(regions: Region[], limits: { clips?: number; stopAt?: number }): number;
-  /** The fewest cells that see every witness added so far (0 unless solved to optimality), with a point in each. */
-  solve(limits: { seconds: number; nodes?: number }): { bound: number; witnesses: number; posts: Point[] };
+  /**
+   * The fewest cells that see every witness added so far (0 unless solved to optimality), with a
+   * point in each; `lightPosts` gives a point in every cell whose witness set no other cell's
+   * contains (Tozoni et al.'s light faces), candidate posts for the plan.
+   */
+  solve(limits: { seconds: number; nodes?: number }): { bound: number; witnesses: number; posts: Point[]; lightPosts: () => Point[] };
 }
 
 /**
@@ -182,7 +186,7 @@ export function createWitnessCells(room: Room): WitnessCells {
   }
 
   function solve(limits: { seconds: number; nodes?: number }) {
-    if (used === 0) return { bound: 0, witnesses: 0, posts: [] };
+    if (used === 0) return { bound: 0, witnesses: 0, posts: [], lightPosts: () => [] };
     // Only cells whose witness set no other cell's set contains matter to the minimum.
     const byKey = new Map(cells.map((c) => [c.sees.join(","), c]));
     const sets = [...byKey.values()].sort((a, b) => b.sees.length - a.sees.length);
@@ -194,7 +198,7 @@ export function createWitnessCells(room: Room): WitnessCells {
     const maximal = maximalCells.map((c) => c.sees);
     const holding: number[][] = Array.from({ length: used }, () => []);
     maximal.forEach((set, j) => set.forEach((w) => holding[w].push(j)));
-    if (holding.some((h) => h.length === 0)) return { bound: 0, witnesses: used, posts: [] };
+    if (holding.some((h) => h.length === 0)) return { bound: 0, witnesses: used, posts: [], lightPosts: () => [] };
     const answer = solveCover({
       columns: maximal.length,
       rows: holding.map((items) => ({ items, need: 1 })),
@@ -202,8 +206,9 @@ export function createWitnessCells(room: Room): WitnessCells {
       nodes: limits.nodes,
     });
     // Only a proven optimum is a bound; an unfinished search only gives an upper value.
-    const posts = answer.chosen.map((j) => pointInside(maximalCells[j].paths.map((path) => path.map((p) => [p.X / scale, p.Y / scale] as Point))));
-    return { bound: answer.status === "optimal" ? answer.chosen.length : 0, witnesses: used, posts };
+    const pointOf = (cell: Cell) => pointInside(cell.paths.map((path) => path.map((p) => [p.X / scale, p.Y / scale] as Point)));
+    const posts = answer.chosen.map((j) => pointOf(maximalCells[j]));
+    return { bound: answer.status === "optimal" ? answer.chosen.length : 0, witnesses: used, posts, lightPosts: () => maximalCells.map(pointOf) };
   }
 
   return {
