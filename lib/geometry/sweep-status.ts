@@ -119,11 +119,12 @@ export class SweepStatus<T> {
  * The same skip list for entries that are small integers (0 .. capacity - 1, each present at most
  * once), with its links in typed arrays: no object per entry, so a sweep over many corners makes
  * no garbage, and reset() empties it for the next sweep without allocating unless it must grow.
- * Levels are promoted with probability 1/4 (Pugh 1990), which halves the link arrays. Searches
- * start from a finger, the entry the previous search or insertion ended at, and climb only as high
- * as the distance needs (Pugh 1990, "A skip list cookbook": search with fingers): a sweep whose
- * consecutive corners meet neighbouring walls (a comb's valleys, left to right at one height)
- * pays O(1) expected per search, and a far search still O(log n) expected.
+ * Levels are promoted with probability 1/4 (Pugh 1990), which halves the link arrays. A search
+ * starts from a finger, the entry the previous search or insertion ended at, when the wanted entry
+ * lies at or right of it, and climbs only as high as the distance needs (Pugh 1990, "A skip list
+ * cookbook": search with fingers): a sweep whose consecutive corners meet neighbouring walls left
+ * to right (a comb's valleys, at one height) pays O(1) expected per search, and any search stays
+ * O(log n) expected.
  */
 export class IndexSweepStatus {
   // Node id = entry + 1; id 0 is the head, and a link 0 means "none" (the head is never a successor).
@@ -193,19 +194,18 @@ export class IndexSweepStatus {
   }
 
   /**
-   * The last node for which `isBefore` holds (0: the head, none holds), searched from the finger:
-   * forward while the next node on the current top level still holds, or backward while the
-   * previous one does not; then down the levels as in Pugh's search.
+   * The last node for which `isBefore` holds (0: the head, none holds). When the finger still
+   * holds, the search climbs from it while the next node on its top level holds too, then goes
+   * down the levels as in Pugh's search; otherwise it searches from the head. (Searching backward
+   * from the finger as well made random rooms, whose consecutive corners are far apart, slower.)
    */
   private lastNode<Q>(isBefore: (entry: number, probe: Q) => boolean, probe: Q): number {
     const next = this.next;
-    const prev = this.prev;
     const heights = this.heights;
     const stride = this.stride;
     let x = this.finger;
     let l: number;
-    if (x === 0) l = this.level - 1;
-    else if (isBefore(x - 1, probe)) {
+    if (x !== 0 && isBefore(x - 1, probe)) {
       l = heights[x] - 1;
       for (let n = next[l * stride + x]; n !== 0 && isBefore(n - 1, probe); n = next[l * stride + x]) {
         x = n;
@@ -213,14 +213,8 @@ export class IndexSweepStatus {
       }
       l--; // the next node on level l does not hold: the answer is below
     } else {
-      l = heights[x] - 1;
-      for (;;) {
-        const p = prev[l * stride + x];
-        x = p;
-        if (p === 0 || isBefore(p - 1, probe)) break;
-        l = heights[x] - 1;
-      }
-      l--; // the node after x on level l does not hold
+      x = 0;
+      l = this.level - 1;
     }
     for (; l >= 0; l--) {
       const base = l * stride;

@@ -118,7 +118,7 @@ function loadRing(ring: Ring, offset: number, work: TriangulationWork, points: P
   for (let i = 0; i < m; i++) {
     const p = ring[i];
     const v = offset + i;
-    points.push(p);
+    points[v] = p;
     xs[v] = p[0];
     ys[v] = p[1];
     next[v] = v + 1;
@@ -138,14 +138,19 @@ export function triangulate(room: Room): Triangulation {
   let n = outline.length;
   for (let r = 0; r < obstacles.length; r++) n += obstacles[r].length;
   const work = workFor(n);
-  const points: Point[] = [];
+  // Both result arrays at their final size: growing them by push copied and re-touched their
+  // storage several times, which was a large part of big rooms' time.
+  const points: Point[] = new Array(n);
   loadRing(outline, 0, work, points);
   for (let r = 0, offset = outline.length; r < obstacles.length; offset += obstacles[r].length, r++) {
     loadRing(obstacles[r], offset, work, points);
   }
   const diagonals = sweepDiagonals(work, n);
-  const triangles: [number, number, number][] = [];
-  triangulatePieces(work, n, diagonals, triangles);
+  const expected = Math.max(0, n + 2 * obstacles.length - 2);
+  const triangles: [number, number, number][] = new Array(expected);
+  const made = triangulatePieces(work, n, diagonals, triangles);
+  // Only an invalid room makes another count; never hand out holes.
+  if (made !== expected) triangles.length = made;
   return { points, triangles };
 }
 
@@ -267,7 +272,7 @@ function angularBefore(xs: Float64Array, ys: Float64Array, centre: number, a: nu
  * face on the left). Only corners with diagonals need their edges in angular order; at any other
  * corner the walk simply goes on along the ring.
  */
-function triangulatePieces(work: TriangulationWork, n: number, count: number, out: [number, number, number][]): void {
+function triangulatePieces(work: TriangulationWork, n: number, count: number, out: [number, number, number][]): number {
   const { xs, ys, next, prev, ends, offset, around, fill, wallDone, slotDone } = work;
   // Around each corner with diagonals: its ring neighbours and diagonal ends, counter-clockwise.
   offset.fill(0, 0, n + 1);
@@ -308,20 +313,23 @@ function triangulatePieces(work: TriangulationWork, n: number, count: number, ou
   }
   wallDone.fill(0, 0, n);
   slotDone.fill(0, 0, offset[n]);
+  let made = 0;
   for (let v = 0; v < n; v++) {
-    if (!wallDone[v]) walkPiece(work, v, next[v], -1, out);
+    if (!wallDone[v]) made = walkPiece(work, v, next[v], -1, out, made);
     for (let k = offset[v]; k < offset[v + 1]; k++) {
       const w = around[k];
-      if (!slotDone[k] && w !== next[v] && w !== prev[v]) walkPiece(work, v, w, k, out);
+      if (!slotDone[k] && w !== next[v] && w !== prev[v]) made = walkPiece(work, v, w, k, out, made);
     }
   }
+  return made;
 }
 
 /**
  * Walk the face to the left of half-edge first -> firstTo (firstSlot: its place around `first`,
- * or -1 for a wall) into work.corners, then triangulate it.
+ * or -1 for a wall) into work.corners, then triangulate it into out[made ..); returns the new
+ * number of triangles.
  */
-function walkPiece(work: TriangulationWork, first: number, firstTo: number, firstSlot: number, out: [number, number, number][]): void {
+function walkPiece(work: TriangulationWork, first: number, firstTo: number, firstSlot: number, out: [number, number, number][], made: number): number {
   const { next, offset, around, wallDone, slotDone, corners } = work;
   let m = 0;
   let from = first;
@@ -356,7 +364,7 @@ function walkPiece(work: TriangulationWork, first: number, firstTo: number, firs
       slot = w === next[from] ? -1 : k;
     }
   }
-  triangulatePiece(work, m, out);
+  return triangulatePiece(work, m, out, made);
 }
 
 const LEFT = 1;
@@ -369,13 +377,10 @@ const RIGHT = 2;
  * runs of collinear corners wait on the stack and are fanned from the opposite chain later.
  * The piece is work.corners[0 .. m).
  */
-function triangulatePiece(work: TriangulationWork, m: number, out: [number, number, number][]): void {
+function triangulatePiece(work: TriangulationWork, m: number, out: [number, number, number][], made: number): number {
   const { xs, ys, corners, sorted, chain, stack } = work;
   if (m < 3) throw new Error(`triangulate: a piece with ${m} corners; is the room valid?`);
-  if (m === 3) {
-    pushTriangle(xs, ys, out, corners[0], corners[1], corners[2]);
-    return;
-  }
+  if (m === 3) return putTriangle(xs, ys, out, made, corners[0], corners[1], corners[2]);
   let top = 0;
   let bottom = 0;
   for (let i = 1; i < m; i++) {
@@ -413,7 +418,7 @@ function triangulatePiece(work: TriangulationWork, m: number, out: [number, numb
     const side = chain[j];
     if ((side & chain[stack[depth - 1]]) === 0) {
       // Opposite chains: u sees every corner on the stack; fan them all from u.
-      fanFrom(xs, ys, out, u, side, stack, depth, sorted);
+      made = fanFrom(xs, ys, out, made, u, side, stack, depth, sorted);
       stack[0] = j - 1;
       stack[1] = j;
       depth = 2;
@@ -424,10 +429,10 @@ function triangulatePiece(work: TriangulationWork, m: number, out: [number, numb
         const p = sorted[last];
         if (side === LEFT) {
           if (!(orientAt(xs, ys, q, p, u) > 0)) break;
-          out.push([q, p, u]);
+          out[made++] = [q, p, u];
         } else {
           if (!(orientAt(xs, ys, u, p, q) > 0)) break;
-          out.push([u, p, q]);
+          out[made++] = [u, p, q];
         }
         last = stack[--depth];
       }
@@ -437,7 +442,7 @@ function triangulatePiece(work: TriangulationWork, m: number, out: [number, numb
   }
   // The bottom corner sees what is left on the stack.
   const bottomChain = chain[stack[depth - 1]] === LEFT ? RIGHT : LEFT;
-  fanFrom(xs, ys, out, sorted[m - 1], bottomChain, stack, depth, sorted);
+  return fanFrom(xs, ys, out, made, sorted[m - 1], bottomChain, stack, depth, sorted);
 }
 
 /** Triangles from corner u (on chain `side`) to each consecutive pair of the stacked corners. */
@@ -445,27 +450,30 @@ function fanFrom(
   xs: Float64Array,
   ys: Float64Array,
   out: [number, number, number][],
+  made: number,
   u: number,
   side: number,
   stack: Int32Array,
   depth: number,
   sorted: Int32Array,
-): void {
+): number {
   for (let i = 0; i + 1 < depth; i++) {
     const upper = sorted[stack[i]];
     const lower = sorted[stack[i + 1]];
-    if (side === LEFT) pushTriangle(xs, ys, out, u, lower, upper);
-    else pushTriangle(xs, ys, out, u, upper, lower);
+    if (side === LEFT) made = putTriangle(xs, ys, out, made, u, lower, upper);
+    else made = putTriangle(xs, ys, out, made, u, upper, lower);
   }
+  return made;
 }
 
-/** Keep the counter-clockwise triangle; a non-positive one means the input broke a precondition. */
-function pushTriangle(xs: Float64Array, ys: Float64Array, out: [number, number, number][], a: number, b: number, c: number): void {
+/** Keep the counter-clockwise triangle as out[made]; a non-positive one means the input broke a precondition. */
+function putTriangle(xs: Float64Array, ys: Float64Array, out: [number, number, number][], made: number, a: number, b: number, c: number): number {
   const o = orientAt(xs, ys, a, b, c);
   if (!(o > 0)) {
     throw new Error(
       `triangulate: corners ${a}, ${b}, ${c} would make a ${o === 0 ? "flat" : "clockwise"} triangle; is the room valid and normalised?`,
     );
   }
-  out.push([a, b, c]);
+  out[made] = [a, b, c];
+  return made + 1;
 }

@@ -3,6 +3,8 @@
 // the AGPLIB benchmark polygons (AGPLIB, Univ. of Campinas), and adversarial shapes (Chvátal combs,
 // spirals, orthogonal rooms with every metre marked). Reports median time per run, the ratio to
 // earcut, and the growth from n to 10n (n log n growth is about 11-13x per 10x; quadratic is 100x).
+import { setFlagsFromString } from "node:v8";
+import { runInNewContext } from "node:vm";
 import earcut, { flatten } from "earcut";
 import { prepareRoom } from "../../lib/geometry/room";
 import { triangulate } from "../../lib/geometry/triangulate";
@@ -18,12 +20,27 @@ function cpuNow(): number {
   return (u.user + u.system) / 1000;
 }
 
+// A full garbage collection before every round, not timed: each round then starts from the same
+// heap and pays for the collections its own allocations cause, not for the other contender's
+// garbage (both leave plenty: earcut a node per vertex, we a triangle array per triangle).
+setFlagsFromString("--expose-gc");
+const collectGarbage = runInNewContext("gc") as () => void;
+
+interface Timing {
+  ours: number;
+  theirs: number;
+  /** Lowest and highest ratio ours / earcut of a single pair of rounds. */
+  low: number;
+  high: number;
+}
+
 /**
  * Median CPU milliseconds per call of each contender, measured in alternating rounds so both see
  * the same machine load; each round repeats a call until it has used at least 20 ms of CPU.
  */
-function timeBoth(ours: () => void, theirs: () => void, rounds = 5): [number, number] {
+function timeBoth(ours: () => void, theirs: () => void, rounds = 7): Timing {
   const round = (work: () => void): number => {
+    collectGarbage();
     const t0 = cpuNow();
     let calls = 0;
     let used = 0;
@@ -41,8 +58,9 @@ function timeBoth(ours: () => void, theirs: () => void, rounds = 5): [number, nu
     b.push(round(theirs));
     if (a[0] > 2000 || b[0] > 2000) break; // one slow call is measurement enough
   }
-  const median = (xs: number[]) => xs.sort((x, y) => x - y)[Math.floor(xs.length / 2)];
-  return [median(a), median(b)];
+  const ratios = a.map((x, r) => x / b[r]);
+  const median = (xs: number[]) => [...xs].sort((x, y) => x - y)[Math.floor(xs.length / 2)];
+  return { ours: median(a), theirs: median(b), low: Math.min(...ratios), high: Math.max(...ratios) };
 }
 
 interface Case {
@@ -65,7 +83,7 @@ function validStar(n: number, seed: number): Room {
   }
 }
 
-function measure(c: Case): { ours: number; earcut: number; triangles: number; earcutTriangles: number } {
+function measure(c: Case): { ours: number; earcut: number; low: number; high: number; triangles: number; earcutTriangles: number } {
   const inputs = c.rooms.map((room) => flatten([room.outline, ...room.obstacles]));
   // Warm up both (JIT) on the same input before timing.
   for (let i = 0; i < (c.n > 20_000 ? 1 : 5); i++) {
@@ -74,7 +92,7 @@ function measure(c: Case): { ours: number; earcut: number; triangles: number; ea
   }
   let triangles = 0;
   let earcutTriangles = 0;
-  const [ours, theirs] = timeBoth(
+  const timing = timeBoth(
     () => {
       triangles = 0;
       for (const room of c.rooms) triangles += triangulate(room).triangles.length;
@@ -84,9 +102,10 @@ function measure(c: Case): { ours: number; earcut: number; triangles: number; ea
       for (const d of inputs) earcutTriangles += earcut(d.vertices, d.holes, d.dimensions).length / 3;
     },
   );
-  return { ours, earcut: theirs, triangles, earcutTriangles };
+  return { ours: timing.ours, earcut: timing.theirs, low: timing.low, high: timing.high, triangles, earcutTriangles };
 }
 
+const range = (m: { low: number; high: number }) => (m.low === m.high ? "" : `${m.low.toFixed(2)}-${m.high.toFixed(2)}`);
 const fmt = (ms: number) => (ms < 1 ? ms.toFixed(3) : ms < 100 ? ms.toFixed(2) : ms.toFixed(0));
 
 export default async function triangulationBench(): Promise<string> {
@@ -127,7 +146,7 @@ export default async function triangulationBench(): Promise<string> {
   ] as const) {
     const n = rooms.reduce((s, r) => s + r.outline.length + r.obstacles.reduce((t, o) => t + o.length, 0), 0);
     const m = measure({ family: label, n, rooms: [...rooms] });
-    agplibRows.push(`| ${label} | ${n.toLocaleString("en")} in all | ${fmt(m.ours)} | ${fmt(m.earcut)} | ${(m.ours / m.earcut).toFixed(2)} | | ${m.triangles.toLocaleString("en")} / ${m.earcutTriangles.toLocaleString("en")} |`);
+    agplibRows.push(`| ${label} | ${n.toLocaleString("en")} in all | ${fmt(m.ours)} | ${fmt(m.earcut)} | ${(m.ours / m.earcut).toFixed(2)} | ${range(m)} | | ${m.triangles.toLocaleString("en")} / ${m.earcutTriangles.toLocaleString("en")} |`);
   }
   // Small sizes of every family first: the garbage of a 100,000-corner run would otherwise be
   // collected (on CPU time) during the next family's small measurements.
@@ -149,15 +168,15 @@ export default async function triangulationBench(): Promise<string> {
     for (const n of sizes) {
       const m = results.get(family)!.get(n)!;
       const grow = previous ? `${(m.ours / previous.ours).toFixed(1)}x / ${(m.earcut / previous.earcut).toFixed(1)}x` : "";
-      rows.push(`| ${family} | ${m.actual.toLocaleString("en")} | ${fmt(m.ours)} | ${fmt(m.earcut)} | ${(m.ours / m.earcut).toFixed(2)} | ${grow} | ${m.triangles.toLocaleString("en")} / ${m.earcutTriangles.toLocaleString("en")} |`);
+      rows.push(`| ${family} | ${m.actual.toLocaleString("en")} | ${fmt(m.ours)} | ${fmt(m.earcut)} | ${(m.ours / m.earcut).toFixed(2)} | ${range(m)} | ${grow} | ${m.triangles.toLocaleString("en")} / ${m.earcutTriangles.toLocaleString("en")} |`);
       previous = m;
     }
   }
   return [
-    `Median CPU milliseconds per triangulation on this machine (2 cores, shared with other work; CPU time, alternating rounds) (Node ${process.version}), ours (monotone pieces, exact predicates, validation not included) against earcut ${"3.x"} in the same run. Ratio = ours / earcut (below 1: we are faster). Growth = time at n divided by time at n/10, ours / earcut. Triangles = ours / earcut's (earcut drops collinear corners, so it may make fewer).`,
+    `Median CPU milliseconds per triangulation on this machine (2 cores, shared with other work; CPU time, 7 alternating rounds of at least 20 ms each, a full garbage collection before each round, not timed) (Node ${process.version}), ours (monotone pieces, exact predicates, validation not included) against earcut ${"3.x"} (which validates nothing) in the same run on the same rings. Ratio = median ours / median earcut (below 1: we are faster); ratio per round = lowest and highest ratio of one pair of rounds. Growth = time at n divided by time at n/10, ours / earcut. Triangles = ours / earcut's (earcut drops collinear corners, so it may make fewer).`,
     "",
-    "| shape | corners n | ours ms | earcut ms | ratio | growth from n/10 | triangles |",
-    "| --- | ---: | ---: | ---: | ---: | ---: | ---: |",
+    "| shape | corners n | ours ms | earcut ms | ratio | ratio per round | growth from n/10 | triangles |",
+    "| --- | ---: | ---: | ---: | ---: | ---: | ---: | ---: |",
     ...rows,
     ...agplibRows,
   ].join("\n");
