@@ -72,6 +72,28 @@ export const WORK_LIMITS = {
   cellRounds: 100,
 };
 
+/**
+ * Whether p lies in the closed ring: the same answer as insideClosedRing (constraints.ts: on an
+ * edge within a nanometre counts as inside), with the distance to an edge computed only when p is
+ * within a nanometre of that edge's box. The incidence of candidates and witnesses calls this most.
+ */
+function insideOrOnRing(p: Point, ring: Ring): boolean {
+  const x = p[0], y = p[1];
+  const near = 1e-9;
+  let inside = false;
+  for (let i = 0, j = ring.length - 1; i < ring.length; j = i++) {
+    const xi = ring[i][0], yi = ring[i][1], xj = ring[j][0], yj = ring[j][1];
+    if (x >= Math.min(xi, xj) - near && x <= Math.max(xi, xj) + near && y >= Math.min(yi, yj) - near && y <= Math.max(yi, yj) + near) {
+      const ex = xi - xj, ey = yi - yj;
+      const length2 = ex * ex + ey * ey;
+      const t = length2 > 0 ? Math.max(0, Math.min(1, ((x - xj) * ex + (y - yj) * ey) / length2)) : 0;
+      if (Math.hypot(x - (xj + t * ex), y - (yj + t * ey)) <= near) return true;
+    }
+    if (yi > y !== yj > y && x < ((xj - xi) * (y - yi)) / (yj - yi) + xi) inside = !inside;
+  }
+  return inside;
+}
+
 /** Corners of the room where the floor turns less than 180°: the hardest places to see. */
 function convexCorners(room: Room): Point[] {
   const corners: Point[] = [];
@@ -129,6 +151,19 @@ export function planFewestOver(
   // A candidate sees a witness within the disc polygon's inner radius, as the certificate draws it.
   const safeReach = range ? range * Math.cos(Math.PI / discCorners(range)) : Infinity;
 
+  const walls: [Point, Point][] = [];
+  for (const ring of [room.outline, ...room.obstacles]) ring.forEach((a, i) => walls.push([a, ring[(i + 1) % ring.length]]));
+  const wallNear = 1e-9 * scale;
+  function onWall(p: Point): boolean {
+    for (const [a, b] of walls) {
+      if (p[0] < Math.min(a[0], b[0]) - wallNear || p[0] > Math.max(a[0], b[0]) + wallNear) continue;
+      if (p[1] < Math.min(a[1], b[1]) - wallNear || p[1] > Math.max(a[1], b[1]) + wallNear) continue;
+      const ex = b[0] - a[0], ey = b[1] - a[1];
+      const length = Math.hypot(ex, ey);
+      if (length > 0 && Math.abs(ex * (p[1] - a[1]) - ey * (p[0] - a[0])) / length <= wallNear) return true;
+    }
+    return false;
+  }
   const sightOf = new Map<string, Ring | null>();
   function sight(p: Point): Ring | null {
     const k = key(p);
@@ -168,7 +203,7 @@ export function planFewestOver(
   function sees(w: (typeof witnesses)[number], p: Point): boolean {
     if (p[0] < w.minX - 1e-9 || p[0] > w.maxX + 1e-9 || p[1] < w.minY - 1e-9 || p[1] > w.maxY + 1e-9) return false;
     if (range && Math.hypot(p[0] - w.point[0], p[1] - w.point[1]) > safeReach) return false;
-    return insideClosedRing(p, w.ring);
+    return insideOrOnRing(p, w.ring);
   }
   const witnessKeys = new Set<string>();
   function boxed(point: Point, ring: Ring) {
@@ -376,13 +411,17 @@ export function planFewestOver(
       for (const p of dual.posts) addCandidate(p);
       // When this keeps failing, more candidates: the corners of the witnesses' regions (the ends
       // of their shadow edges, where optimal posts of orthogonal rooms stand), later the middles
-      // of their edges.
+      // of their shadow edges (edges along a wall add nothing a corner does not).
       stalls++;
       if (stalls === 2 || stalls === 4) {
         for (const w of [...witnesses]) {
           for (let i = 0; i < w.ring.length; i++) {
             const a = w.ring[i], b = w.ring[(i + 1) % w.ring.length];
-            addCandidate(stalls === 2 ? a : [(a[0] + b[0]) / 2, (a[1] + b[1]) / 2]);
+            if (stalls === 2) addCandidate(a);
+            else {
+              const middle: Point = [(a[0] + b[0]) / 2, (a[1] + b[1]) / 2];
+              if (!onWall(middle)) addCandidate(middle);
+            }
           }
         }
       }
@@ -402,7 +441,9 @@ export function planFewestOver(
           addCandidate(p);
         }
       }
-      coverRounds(WORK_LIMITS.laterRounds, secondsLeft);
+      // The plan's search goes again on the first failure and then on every third: in between the
+      // gaps' witnesses mostly lift the bound, and a cover program that finds nothing costs most.
+      if (stalls === 1 || stalls % 3 === 0) coverRounds(WORK_LIMITS.laterRounds, secondsLeft);
       waiting = witnesses.flatMap((w, i) => (!inS.has(key(w.point)) && !dual.posts.some((p) => sees(w, p)) ? [i] : []));
       if (waiting.length === 0 && witnesses.length === witnessesBefore) break;
     }

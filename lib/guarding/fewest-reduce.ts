@@ -67,6 +67,22 @@ export function reduceCover(columnCount: number, rows: CoverRow[], fixed: number
   };
   for (const c of fixed) if (c >= 0 && c < columnCount) take(c);
   let infeasible = false;
+  // Rule 3 for identical columns first, by a signature (cheap, and most candidate posts that
+  // stand close together see the same witnesses): of equal columns whose rows need one post each
+  // the first stays.
+  const firstWith = new Map<string, number>();
+  for (let c = 0; c < columnCount; c++) {
+    if (!colAlive[c]) continue;
+    const live = colRows[c].filter((r) => need[r] > 0);
+    if (live.length === 0) {
+      colAlive[c] = 0;
+      continue;
+    }
+    if (live.some((r) => need[r] !== 1)) continue;
+    const signature = live.join(",");
+    if (firstWith.has(signature)) colAlive[c] = 0;
+    else firstWith.set(signature, c);
+  }
 
   const liveItems = (r: number) => rowItems[r].filter((c) => colAlive[c]);
   const liveRows = (c: number) => colRows[c].filter((r) => rowAlive[r]);

@@ -53,25 +53,27 @@ const WINDOW_MARGIN = 4;
 function clipToWindow(path: IntPoint[], x0: number, y0: number, x1: number, y1: number): IntPoint[] {
   let points = path;
   for (let side = 0; side < 4 && points.length > 0; side++) {
-    const inside = (p: IntPoint) => (side === 0 ? p.X >= x0 : side === 1 ? p.X <= x1 : side === 2 ? p.Y >= y0 : p.Y <= y1);
-    const cross = (a: IntPoint, b: IntPoint): IntPoint => {
-      if (side < 2) {
-        const x = side === 0 ? x0 : x1;
-        return { X: x, Y: Math.round(a.Y + ((x - a.X) * (b.Y - a.Y)) / (b.X - a.X)) };
-      }
-      const y = side === 2 ? y0 : y1;
-      return { X: Math.round(a.X + ((y - a.Y) * (b.X - a.X)) / (b.Y - a.Y)), Y: y };
-    };
+    // Sides: x >= x0, x <= x1, y >= y0, y <= y1; `level` is the side's line, `sign` faces inside.
+    const alongX = side < 2;
+    const level = side === 0 ? x0 : side === 1 ? x1 : side === 2 ? y0 : y1;
+    const sign = side % 2 === 0 ? 1 : -1;
     const out: IntPoint[] = [];
+    let a = points[points.length - 1];
+    let aIn = sign * ((alongX ? a.X : a.Y) - level) >= 0;
     for (let i = 0; i < points.length; i++) {
-      const a = points[(i + points.length - 1) % points.length], b = points[i];
-      const aIn = inside(a), bIn = inside(b);
-      if (bIn) {
-        if (!aIn) out.push(cross(a, b));
-        out.push(b);
-      } else if (aIn) {
-        out.push(cross(a, b));
+      const b = points[i];
+      const bIn = sign * ((alongX ? b.X : b.Y) - level) >= 0;
+      if (aIn !== bIn) {
+        // The crossing with the side's line, rounded to the grid along the line.
+        out.push(
+          alongX
+            ? { X: level, Y: Math.round(a.Y + ((level - a.X) * (b.Y - a.Y)) / (b.X - a.X)) }
+            : { X: Math.round(a.X + ((level - a.Y) * (b.X - a.X)) / (b.Y - a.Y)), Y: level },
+        );
       }
+      if (bIn) out.push(b);
+      a = b;
+      aIn = bIn;
     }
     points = out;
   }
