@@ -126,6 +126,20 @@ export interface WitnessCells {
    * contains (Tozoni et al.'s light faces), candidate posts for the plan.
    */
   solve(limits: { seconds: number; nodes?: number }): { bound: number; witnesses: number; posts: Point[]; lightPosts: () => Point[] };
+  /** The witnesses (by order added) of the cell holding a point of the room, or null outside. */
+  labelAt(point: Point): number[] | null;
+}
+
+/** Even-odd point-in-paths on the grid (a cell's rings from Clipper never overlap). */
+function insidePaths(x: number, y: number, paths: IntPoint[][]): boolean {
+  let inside = false;
+  for (const path of paths) {
+    for (let i = 0, j = path.length - 1; i < path.length; j = i++) {
+      const a = path[i], b = path[j];
+      if (a.Y > y !== b.Y > y && x < ((b.X - a.X) * (y - a.Y)) / (b.Y - a.Y) + a.X) inside = !inside;
+    }
+  }
+  return inside;
 }
 
 /**
@@ -213,12 +227,22 @@ export function createWitnessCells(room: Room): WitnessCells {
     return { bound: answer.status === "optimal" ? answer.chosen.length : 0, witnesses: used, posts, lightPosts: () => maximalCells.map(pointOf) };
   }
 
+  function labelAt(point: Point): number[] | null {
+    const x = point[0] * scale, y = point[1] * scale;
+    for (const cell of cells) {
+      if (x < cell.minX || x > cell.maxX || y < cell.minY || y > cell.maxY) continue;
+      if (insidePaths(x, y, cell.paths)) return cell.sees;
+    }
+    return null;
+  }
+
   return {
     get witnesses() {
       return used;
     },
     add,
     solve,
+    labelAt,
   };
 }
 
