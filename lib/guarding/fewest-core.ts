@@ -2,12 +2,15 @@
 // 966: a practical iterative algorithm for the art gallery problem using integer linear
 // programming" (ACM TOMS 43(2), 2016). Witnesses are points that must be seen; candidate posts are
 // the room's corners, the pinned posts and points in the witnesses' regions; an integer program
-// (HiGHS) picks the fewest candidates that see every witness; the coverage certificate then checks
-// the whole room, and each unseen part adds a witness, until nothing is unseen. The lower bound is
-// an independent witness set (lower-bound.ts) or, where that falls short, the witness problem
-// solved exactly over the overlay of the witnesses' regions (lower-bound-arrangement.ts), whose
-// chosen cells also offer new candidate posts. Anytime: at the time limit the best certified plan
-// found so far is returned with its bound.
+// (HiGHS, after the set-cover reductions of fewest-reduce.ts) picks the fewest candidates that see
+// every witness; the coverage certificate then checks the whole room, and each unseen part adds a
+// witness, until nothing is unseen.
+// Lower bound, single cover with nothing pinned: the witness problem solved exactly over the
+// overlay of a subset S of the witnesses' regions (lower-bound-arrangement.ts). S grows by row
+// generation: the witnesses the bound's posts (a point in each chosen cell) miss join it; when the
+// posts see every witness they are certified, and if they see the room the plan meets the bound
+// (Tozoni et al.'s loop). Otherwise (double cover, pinned posts): independent witnesses
+// (lower-bound.ts). Anytime: at the time limit the best certified plan so far is returned with its bound.
 import type { Point, Ring, Room, Triangulation } from "../geometry/types";
 import { createSightlines, type Sightlines } from "../geometry/visibility";
 import { clipToSightRange, discCorners } from "../geometry/visibility-range";
@@ -62,13 +65,13 @@ export const WORK_LIMITS = {
   laterRounds: 40,
   /** Branch-and-bound nodes per integer program (HiGHS mip_max_nodes). */
   solverNodes: 20000,
-  /** Witnesses offered to the independent-witness bound, smallest regions first. */
+  /** Witnesses offered to the independent-witness bound (double cover, pinned), smallest regions first. */
   packingWitnesses: 1500,
   /** Nodes for the packing's integer program (weak relaxation: its nodes rarely pay; cells do better). */
   packingNodes: 300,
-  /** Boolean operations the witness-cell overlay may spend per bound. */
+  /** Boolean operations (Clipper calls on cells a region boundary crosses) per growth of the overlay. */
   cellClips: 40000,
-  /** Rounds of witness-cell bound and its posts as candidates (the overlay grows each round). */
+  /** Rounds of the witness-cell loop: bound, missed witnesses join the overlay, posts certified. */
   cellRounds: 100,
 };
 
@@ -365,7 +368,9 @@ export function planFewestOver(
       const again = lowerBound();
       if (again.bound > proof.bound) proof = again;
     }
-  } else if (best) {
+  } else {
+    // The best plan's size, or no limit while no plan is certified yet.
+    const planSize = () => best?.posts.length ?? Infinity;
     // Tozoni et al.'s loop over one overlay that grows with the witnesses it needs (row generation):
     // the bound over a subset S of the witnesses is a proof by itself, since every witness set gives
     // one. The bound's posts (a point in each chosen cell) are checked against all witnesses; those
@@ -386,7 +391,7 @@ export function planFewestOver(
       waiting.push(i);
     }
     let stalls = 0;
-    for (let round = 0; round < WORK_LIMITS.cellRounds && proof.bound < best.posts.length && secondsLeft() > 0; round++) {
+    for (let round = 0; round < WORK_LIMITS.cellRounds && proof.bound < planSize() && secondsLeft() > 0; round++) {
       const regions = waiting.map((i) => regionAt(witnesses[i].point, witnesses[i].ring));
       const count = overlay.add(regions, { clips: WORK_LIMITS.cellClips, stopAt: deadline });
       for (const i of waiting.slice(0, count)) {
@@ -395,12 +400,12 @@ export function planFewestOver(
       }
       const complete = count === waiting.length;
       const dual = overlay.solve({ seconds: secondsLeft() + 0.5, nodes: WORK_LIMITS.solverNodes });
-      T(`cells round ${round}: S ${inOverlay.length}/${witnesses.length} (added ${count}/${waiting.length}), bound ${dual.bound}, plan ${best.posts.length}`);
+      T(`cells round ${round}: S ${inOverlay.length}/${witnesses.length} (added ${count}/${waiting.length}), bound ${dual.bound}, plan ${planSize()}`);
       if (dual.bound > proof.bound) {
         proof = { bound: dual.bound, witnesses: [...inOverlay] };
         boundMethod = "witness cells";
       }
-      if (proof.bound >= best.posts.length || dual.posts.length === 0 || !complete) break;
+      if (proof.bound >= planSize() || dual.posts.length === 0 || !complete) break;
       // Row generation: the witnesses the bound's posts miss.
       const missed = witnesses.flatMap((w, i) => (!inS.has(key(w.point)) && !dual.posts.some((p) => sees(w, p)) ? [i] : []));
       if (missed.length > 0) {
@@ -429,7 +434,7 @@ export function planFewestOver(
       for (const p of dual.lightPosts()) addCandidate(p);
       const cellPosts = dual.posts.filter((p) => candidateKeys.has(key(p)));
       const witnessesBefore = witnesses.length;
-      if (cellPosts.length === dual.posts.length && cellPosts.length < best.posts.length) {
+      if (cellPosts.length === dual.posts.length && cellPosts.length < planSize()) {
         const certificate = certify(cellPosts);
         if (certificate.covered === 1) {
           best = { posts: cellPosts, certificate };
