@@ -230,9 +230,19 @@ export function solveCover(problem: {
   const reduced = reduceCover(problem.columns, problem.rows, problem.fixed);
   if (reduced.infeasible) return { status: "infeasible", chosen: [], size: { rows: 0, columns: 0 } };
   const size = { rows: reduced.rows.length, columns: reduced.columns.length };
-  if (reduced.rows.length === 0) return { status: "optimal", chosen: [...reduced.forced].sort((a, b) => a - b), size };
   const room = problem.atMostColumns === undefined ? Infinity : problem.atMostColumns - reduced.forced.length;
   if (room < 0 || (room === 0 && reduced.rows.length > 0)) return { status: "infeasible", chosen: [], size };
+  if (reduced.rows.length === 0) return { status: "optimal", chosen: [...reduced.forced].sort((a, b) => a - b), size };
+  // Small single covers: an exact search in JavaScript first (HiGHS costs more to start than such
+  // a search takes); when its node budget runs out, HiGHS decides.
+  if (reduced.rows.every((r) => r.need === 1)) {
+    const found = searchCover(reduced.columns.length, reduced.rows.map((r) => r.items), room, SEARCH_NODES);
+    if (found === "infeasible") return { status: "infeasible", chosen: [], size };
+    if (found) {
+      const chosen = [...reduced.forced, ...found.map((j) => reduced.columns[j])].sort((a, b) => a - b);
+      return { status: "optimal", chosen, size };
+    }
+  }
   const answer = solveBinaryProgram({
     sense: "minimise",
     weights: reduced.columns.map(() => 1),
@@ -246,28 +256,97 @@ export function solveCover(problem: {
   return { status: answer.status, chosen, size };
 }
 
+/** Nodes the exact search may visit before HiGHS takes over (a count, so the same on any machine). */
+export const SEARCH_NODES = 4000;
+
 /**
- * Rows no other row dominates (rule 2 alone, no columns removed): the witnesses that still matter
- * when the columns are only a sample of all possible posts. Of equal rows the first is kept.
+ * The fewest columns (at most `most`) meeting rows that each need one: depth-first search that
+ * branches on the open row with the fewest usable columns, each of its columns in turn (a column
+ * tried is barred from its later siblings, whose plans without it are all that is left), pruned by
+ * a packing bound (open rows with pairwise disjoint usable columns each need a column of their
+ * own). An exact search: the classic branching for set covering (Garfinkel & Nemhauser 1972,
+ * ch. 8). Null when the node budget runs out.
  */
-export function undominatedRows(columnCount: number, rows: number[][]): number[] {
-  const bits = rows.map((items) => {
-    const b = new Bits(columnCount);
-    for (const c of items) b.set(c);
-    return b;
-  });
+export function searchCover(columnCount: number, rows: number[][], most: number, maxNodes: number): number[] | "infeasible" | null {
+  const rowCount = rows.length;
   const colRows: number[][] = Array.from({ length: columnCount }, () => []);
   rows.forEach((items, r) => items.forEach((c) => colRows[c].push(r)));
-  const alive = new Uint8Array(rows.length).fill(1);
-  const order = rows.map((_, r) => r).sort((a, b) => rows[a].length - rows[b].length || a - b);
-  for (const a of order) {
-    if (!alive[a] || rows[a].length === 0) continue;
-    let rarest = rows[a][0];
-    for (const c of rows[a]) if (colRows[c].length < colRows[rarest].length) rarest = c;
-    for (const b of colRows[rarest]) {
-      if (b === a || !alive[b] || rows[b].length < rows[a].length) continue;
-      if (bits[a].within(bits[b])) alive[b] = 0;
+  const bySize = rows.map((_, r) => r).sort((a, b) => rows[a].length - rows[b].length || a - b);
+  const seenBy = new Int32Array(rowCount); // chosen columns meeting each row
+  const barred = new Uint8Array(columnCount);
+  const stamp = new Int32Array(columnCount);
+  let stampId = 0;
+  let open = rowCount;
+  const chosen: number[] = [];
+  let best = Number.isFinite(most) ? most + 1 : Infinity;
+  let bestSet: number[] | null = null;
+  let nodes = 0;
+  let aborted = false;
+
+  const packing = (): number => {
+    stampId++;
+    let count = 0;
+    for (const r of bySize) {
+      if (seenBy[r] > 0) continue;
+      let free = true, usable = 0;
+      for (const c of rows[r]) {
+        if (barred[c]) continue;
+        usable++;
+        if (stamp[c] === stampId) free = false;
+      }
+      if (usable === 0) return Infinity;
+      if (!free) continue;
+      count++;
+      for (const c of rows[r]) if (!barred[c]) stamp[c] = stampId;
     }
-  }
-  return rows.flatMap((_, r) => (alive[r] ? [r] : []));
+    return count;
+  };
+  const take = (c: number, sign: 1 | -1) => {
+    for (const r of colRows[c]) {
+      if (sign === 1 && seenBy[r]++ === 0) open--;
+      if (sign === -1 && --seenBy[r] === 0) open++;
+    }
+  };
+  const search = () => {
+    if (aborted) return;
+    if (++nodes > maxNodes) {
+      aborted = true;
+      return;
+    }
+    if (open === 0) {
+      if (chosen.length < best) {
+        best = chosen.length;
+        bestSet = [...chosen];
+      }
+      return;
+    }
+    if (chosen.length + packing() >= best) return;
+    let row = -1, fewest = Infinity;
+    for (let r = 0; r < rowCount; r++) {
+      if (seenBy[r] > 0) continue;
+      let usable = 0;
+      for (const c of rows[r]) if (!barred[c]) usable++;
+      if (usable < fewest) {
+        fewest = usable;
+        row = r;
+      }
+    }
+    const gain = (c: number) => colRows[c].reduce((n, r) => n + (seenBy[r] === 0 ? 1 : 0), 0);
+    const order = rows[row].filter((c) => !barred[c]).sort((a, b) => gain(b) - gain(a) || a - b);
+    const tried: number[] = [];
+    for (const c of order) {
+      chosen.push(c);
+      take(c, 1);
+      search();
+      take(c, -1);
+      chosen.pop();
+      if (aborted) break;
+      barred[c] = 1;
+      tried.push(c);
+    }
+    for (const c of tried) barred[c] = 0;
+  };
+  search();
+  if (aborted) return null;
+  return bestSet ?? "infeasible";
 }

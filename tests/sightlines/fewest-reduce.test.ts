@@ -1,10 +1,10 @@
 // The set-cover reductions (forced columns, row and column domination: the classic set-covering
 // preprocessing, Garfinkel & Nemhauser 1972, ch. 8; Tozoni, de Rezende & de Souza, ACM TOMS 2016)
-// keep the optimum: on random covering programs the reduced program's optimum plus its forced
+// and the exact search that follows them keep the optimum: on random covering programs the reduced program's optimum plus its forced
 // columns equals the optimum found by exhaustive search over every subset of columns (the outside
 // reference: plain enumeration, no solver), and the answer meets every row.
 import { describe, expect, it } from "vitest";
-import { reduceCover, solveCover, type CoverRow } from "@/lib/guarding/fewest-reduce";
+import { reduceCover, searchCover, solveCover, type CoverRow } from "@/lib/guarding/fewest-reduce";
 
 /** A small deterministic generator (mulberry32, common practice) so failures repeat. */
 function random(seed: number) {
@@ -72,6 +72,32 @@ describe("set-cover reductions keep the optimum (exhaustive search as the refere
       expect(reducedSomething).toBeGreaterThan(200);
     });
   }
+
+  it("the exact search alone, on unreduced programs, finds the exhaustive optimum or proves none is small enough", () => {
+    for (let seed = 1; seed <= 200; seed++) {
+      const { columns, rows } = randomProgram(seed * 31, false);
+      const truth = exhaustive(columns, rows, []);
+      const found = searchCover(columns, rows.map((r) => r.items), Infinity, 1e6);
+      expect(Array.isArray(found), `seed ${seed}`).toBe(true);
+      expect((found as number[]).length, `seed ${seed}`).toBe(truth);
+      expect(meets(rows, new Set(found as number[])), `seed ${seed}`).toBe(true);
+      // Asked for one column fewer than the optimum, there is none.
+      expect(searchCover(columns, rows.map((r) => r.items), truth - 1, 1e6), `seed ${seed}`).toBe("infeasible");
+    }
+    // With no nodes to spend it gives up (and HiGHS takes over in solveCover).
+    expect(searchCover(3, [[0, 1], [1, 2], [0, 2]], Infinity, 1)).toBeNull();
+  });
+
+  it("asked for plans below the optimum, the reduced program is infeasible; at the optimum it is met", () => {
+    for (let seed = 1; seed <= 100; seed++) {
+      const { columns, rows, fixed } = randomProgram(seed * 101, seed % 2 === 0);
+      const truth = exhaustive(columns, rows, fixed);
+      if (truth === Infinity) continue;
+      expect(solveCover({ columns, rows, fixed, atMostColumns: truth - 1, seconds: 5 }).status, `seed ${seed}`).toBe("infeasible");
+      const answer = solveCover({ columns, rows, fixed, atMostColumns: truth, seconds: 5 });
+      expect(answer.chosen.length, `seed ${seed}`).toBe(truth);
+    }
+  });
 
   it("a row seen by one column forces it; a column seeing a subset of another's rows goes", () => {
     // Rows: w0 {0}, w1 {1, 2}, w2 {1, 2, 3}. Column 0 is forced; w2 contains w1 and goes; then
