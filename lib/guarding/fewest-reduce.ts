@@ -257,7 +257,7 @@ export function solveCover(problem: {
 }
 
 /** Nodes the exact search may visit before HiGHS takes over (a count, so the same on any machine). */
-export const SEARCH_NODES = 4000;
+export const SEARCH_NODES = 600;
 
 /**
  * The fewest columns (at most `most`) meeting rows that each need one: depth-first search that
