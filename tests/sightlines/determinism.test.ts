@@ -6,7 +6,7 @@
 import { describe, expect, it } from "vitest";
 import { FLOORS } from "@/db/seed";
 import { planFewest } from "@/lib/guarding/fewest";
-import { prepared } from "./rooms";
+import { agplibRoom, prepared } from "./rooms";
 import { expectSeen } from "./expect-seen";
 
 const seededRoom = (name: string) => {
@@ -23,6 +23,19 @@ describe("the same room gives the same fewest plan", () => {
     expect(second.posts).toEqual(first.posts);
     expect(second.lowerBound).toBe(first.lowerBound);
     expectSeen(room, first, 2);
+  });
+
+  // AGPLIB, Univ. of Campinas: a room whose plan once varied with where the 10 s time limit cut
+  // the search; the witness-cell loop now ends by its work limits or by proof.
+  it("gB_simple-simple_25_100v-10h_3 (AGPLIB): two runs agree post for post and on the bound", () => {
+    const room = agplibRoom("gB_simple-simple_25_100v-10h_3");
+    const first = planFewest(room, { timeLimit: 10 });
+    const second = planFewest(room, { timeLimit: 10 });
+    expect(second.posts).toEqual(first.posts);
+    expect(second.lowerBound).toBe(first.lowerBound);
+    expect(first.stoppedBy).not.toBe("time-limit");
+    expect(first.covered).toBe(1);
+    expectSeen(room, first, 1, Infinity, 300);
   });
 
   it("Exhibition Hall East, sight range 15 m: two runs agree", () => {
