@@ -97,6 +97,21 @@ function insideOrOnRing(p: Point, ring: Ring): boolean {
   return inside;
 }
 
+/** Whether p lies outside the ring and farther than `margin` from every edge of it. */
+function clearlyOutside(p: Point, ring: Ring, margin: number): boolean {
+  const x = p[0], y = p[1];
+  let inside = false;
+  for (let i = 0, j = ring.length - 1; i < ring.length; j = i++) {
+    const xi = ring[i][0], yi = ring[i][1], xj = ring[j][0], yj = ring[j][1];
+    const ex = xi - xj, ey = yi - yj;
+    const length2 = ex * ex + ey * ey;
+    const t = length2 > 0 ? Math.max(0, Math.min(1, ((x - xj) * ex + (y - yj) * ey) / length2)) : 0;
+    if (Math.hypot(x - (xj + t * ex), y - (yj + t * ey)) <= margin) return false;
+    if (yi > y !== yj > y && x < ((xj - xi) * (y - yi)) / (yj - yi) + xi) inside = !inside;
+  }
+  return !inside;
+}
+
 /** Corners of the room where the floor turns less than 180°: the hardest places to see. */
 function convexCorners(room: Room): Point[] {
   const corners: Point[] = [];
@@ -245,7 +260,6 @@ export function planFewestOver(
     if (certificate.covered === 1) best = { posts: starting, certificate };
   }
   let lastTry: { posts: Point[]; certificate: CoverageCertificate } | null = best;
-  T(`starting certified`);
 
   // The best lower bound so far and which proof gave it.
   let proof: LowerBound = { bound: pinned.length, witnesses: [] };
@@ -281,7 +295,6 @@ export function planFewestOver(
         break;
       }
       const certificate = certify(posts);
-      T(`certified`);
       lastTry = { posts, certificate };
       if (certificate.covered === 1) {
         if (!best || posts.length < best.posts.length) best = { posts, certificate };
@@ -348,9 +361,9 @@ export function planFewestOver(
 
   coverRounds(WORK_LIMITS.firstRounds);
   T(`first rounds done best=${best?.posts.length}`);
-  // Single cover with nothing pinned: the witness-cell bound (lower-bound-arrangement.ts), which
-  // subsumes any packing of the same witnesses. Otherwise independent witnesses (lower-bound.ts).
-  const cellsApply = demand === 1 && pinned.length === 0;
+  // Single cover: the witness-cell bound (lower-bound-arrangement.ts), which subsumes any packing
+  // of the same witnesses. Double cover: independent witnesses (lower-bound.ts).
+  const cellsApply = demand === 1;
   if (!cellsApply) {
     proof = lowerBound();
     T(`packing bound ${proof.bound}`);
@@ -377,6 +390,19 @@ export function planFewestOver(
     // they miss join S, because with them the bound may rise. When the posts see every witness, S
     // gives the bound of all of them; then the posts are certified: if they see the room the plan
     // meets the bound, else their gaps become witnesses and posts, and the cover rounds go again.
+    // Pinned posts are in every plan; the others must see every witness no pinned post sees. A
+    // witness joins S only when every pinned post stands clearly outside its region (farther than
+    // 1e-9 of the room's size, or beyond the sight range), so it surely needs another post, and the
+    // bound is the pinned count plus the cell bound over S.
+    const margin = 1e-9 * scale;
+    const eligible = new Map<number, boolean>();
+    const unseenByPinned = (i: number): boolean => {
+      if (!eligible.has(i)) {
+        const w = witnesses[i];
+        eligible.set(i, pinned.every((p) => (range && Math.hypot(p[0] - w.point[0], p[1] - w.point[1]) > range * (1 + 1e-9) + margin) || clearlyOutside(p, w.ring, margin)));
+      }
+      return eligible.get(i)!;
+    };
     const overlay = createWitnessCells(room);
     const inOverlay: Point[] = [];
     const inS = new Set<string>();
@@ -386,6 +412,7 @@ export function planFewestOver(
     const taken = new Uint32Array(words);
     let waiting: number[] = [];
     for (const i of witnesses.map((_, i) => i).sort((a, b) => seenBy[a].length - seenBy[b].length || a - b)) {
+      if (!unseenByPinned(i)) continue;
       if (seenBy[i].some((c) => (taken[c >>> 5] & (1 << (c & 31))) !== 0)) continue;
       for (const c of seenBy[i]) taken[c >>> 5] |= 1 << (c & 31);
       waiting.push(i);
@@ -401,13 +428,13 @@ export function planFewestOver(
       const complete = count === waiting.length;
       const dual = overlay.solve({ seconds: secondsLeft() + 0.5, nodes: WORK_LIMITS.solverNodes });
       T(`cells round ${round}: S ${inOverlay.length}/${witnesses.length} (added ${count}/${waiting.length}), bound ${dual.bound}, plan ${planSize()}`);
-      if (dual.bound > proof.bound) {
-        proof = { bound: dual.bound, witnesses: [...inOverlay] };
+      if (pinned.length + dual.bound > proof.bound) {
+        proof = { bound: pinned.length + dual.bound, witnesses: [...inOverlay] };
         boundMethod = "witness cells";
       }
       if (proof.bound >= planSize() || dual.posts.length === 0 || !complete) break;
       // Row generation: the witnesses the bound's posts miss.
-      const missed = witnesses.flatMap((w, i) => (!inS.has(key(w.point)) && !dual.posts.some((p) => sees(w, p)) ? [i] : []));
+      const missed = witnesses.flatMap((w, i) => (!inS.has(key(w.point)) && unseenByPinned(i) && !dual.posts.some((p) => sees(w, p)) ? [i] : []));
       if (missed.length > 0) {
         waiting = missed.sort((a, b) => Math.abs(ringArea(witnesses[a].ring)) - Math.abs(ringArea(witnesses[b].ring)) || a - b);
         continue;
@@ -434,10 +461,10 @@ export function planFewestOver(
       for (const p of dual.lightPosts()) addCandidate(p);
       const cellPosts = dual.posts.filter((p) => candidateKeys.has(key(p)));
       const witnessesBefore = witnesses.length;
-      if (cellPosts.length === dual.posts.length && cellPosts.length < planSize()) {
-        const certificate = certify(cellPosts);
+      if (cellPosts.length === dual.posts.length && pinned.length + cellPosts.length < planSize()) {
+        const certificate = certify([...pinned, ...cellPosts]);
         if (certificate.covered === 1) {
-          best = { posts: cellPosts, certificate };
+          best = { posts: [...pinned, ...cellPosts], certificate };
           break;
         }
         for (const polygon of certificate.uncovered) {
@@ -449,7 +476,7 @@ export function planFewestOver(
       // The plan's search goes again on the first failure and then on every third: in between the
       // gaps' witnesses mostly lift the bound, and a cover program that finds nothing costs most.
       if (stalls === 1 || stalls % 3 === 0) coverRounds(WORK_LIMITS.laterRounds, secondsLeft);
-      waiting = witnesses.flatMap((w, i) => (!inS.has(key(w.point)) && !dual.posts.some((p) => sees(w, p)) ? [i] : []));
+      waiting = witnesses.flatMap((w, i) => (!inS.has(key(w.point)) && unseenByPinned(i) && !dual.posts.some((p) => sees(w, p)) ? [i] : []));
       if (waiting.length === 0 && witnesses.length === witnessesBefore) break;
     }
   }

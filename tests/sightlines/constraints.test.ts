@@ -2,6 +2,7 @@
 // obstacles. Each plan is confirmed by the independent sampler in ./sampler.ts.
 import { describe, expect, it } from "vitest";
 import { planFewest } from "@/lib/guarding/fewest";
+import { comb } from "@/lib/guarding/comb";
 import { insideClosedRing } from "@/lib/guarding/constraints";
 import type { Point, Ring } from "@/lib/geometry/types";
 import { prepared } from "./rooms";
@@ -46,6 +47,23 @@ describe("pinned posts", () => {
     expect(plan.lowerBound).toBeGreaterThanOrEqual(1);
     expectSeen(hall, plan);
   });
+  // Chvátal (1975): no point sees the tips of two prongs of a comb, so a comb with k prongs needs k
+  // posts whatever is pinned inside one prong each; the planner must reach k and prove it.
+  for (const pins of [[[1, 9]], [[1, 9], [4, 8]], [[5, 0.5]]] as Point[][]) {
+    it(`comb with 5 prongs, pinned ${pins.map((p) => `(${p[0]}, ${p[1]})`).join(" and ")}: 5 posts, bound 5 (Chvátal 1975)`, () => {
+      const room = prepared(comb(5));
+      const plan = planFewest(room, { pinned: pins, timeLimit: 5 });
+      for (const pin of pins) expect(plan.posts).toContainEqual(pin);
+      expect(plan.posts).toHaveLength(5);
+      expect(plan.lowerBound).toBe(5);
+      expect(plan.proven).toBe(true);
+      expectSeen(room, plan);
+      // The bound counts the pinned posts plus witnesses none of them sees (else it would count
+      // twice); checked with the sampler's own sightlines.
+      for (const w of plan.boundWitnesses) for (const pin of pins) expect(seesPoint(pin, w, room), `pin ${pin} sees bound witness ${w}`).toBe(false);
+      expect(plan.boundWitnesses.length).toBeGreaterThanOrEqual(5 - pins.length);
+    });
+  }
   it("a pinned post outside the room is reported, not silently used", () => {
     const plan = planFewest(hall, { pinned: [[20, 20]], timeLimit: 1 });
     expect(plan.problems.map((p) => p.code)).toContain("pinned-outside-room");
