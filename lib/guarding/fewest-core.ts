@@ -5,12 +5,12 @@
 // (HiGHS, after the set-cover reductions of fewest-reduce.ts) picks the fewest candidates that see
 // every witness; the coverage certificate then checks the whole room, and each unseen part adds a
 // witness, until nothing is unseen.
-// Lower bound, single cover with nothing pinned: the witness problem solved exactly over the
-// overlay of a subset S of the witnesses' regions (lower-bound-arrangement.ts). S grows by row
-// generation: the witnesses the bound's posts (a point in each chosen cell) miss join it; when the
-// posts see every witness they are certified, and if they see the room the plan meets the bound
-// (Tozoni et al.'s loop). Otherwise (double cover, pinned posts): independent witnesses
-// (lower-bound.ts). Anytime: at the time limit the best certified plan so far is returned with its bound.
+// Lower bound, single cover: the pinned posts plus the witness problem solved exactly over the
+// overlay of a subset S of the witnesses' regions (lower-bound-arrangement.ts), S holding only
+// witnesses no pinned post sees. S grows by row generation: the witnesses the bound's posts (a
+// point in each chosen cell) miss join it; when the posts see every witness they are certified,
+// and if they see the room the plan meets the bound (Tozoni et al.'s loop). Double cover:
+// independent witnesses (lower-bound.ts). Anytime: at the time limit the best certified plan so far is returned with its bound.
 import type { Point, Ring, Room, Triangulation } from "../geometry/types";
 import { createSightlines, type Sightlines } from "../geometry/visibility";
 import { clipToSightRange, discCorners } from "../geometry/visibility-range";
@@ -29,7 +29,7 @@ export interface FewestOptions extends PostConstraints {
 
 export interface FewestPlan {
   posts: Point[];
-  /** No plan meeting the constraints has fewer posts (independent witnesses; see lower-bound.ts). */
+  /** No plan meeting the constraints has fewer posts (witness cells or independent witnesses; see lower-bound*.ts). */
   lowerBound: number;
   /** lowerBound equals the number of posts and the certificate says the room is covered. */
   proven: boolean;
@@ -65,7 +65,7 @@ export const WORK_LIMITS = {
   laterRounds: 40,
   /** Branch-and-bound nodes per integer program (HiGHS mip_max_nodes). */
   solverNodes: 20000,
-  /** Witnesses offered to the independent-witness bound (double cover, pinned), smallest regions first. */
+  /** Witnesses offered to the independent-witness bound (double cover), smallest regions first. */
   packingWitnesses: 1500,
   /** Nodes for the packing's integer program (weak relaxation: its nodes rarely pay; cells do better). */
   packingNodes: 300,

@@ -1,5 +1,5 @@
 // The fewest plan for a room: the public entry point (see fewest-core.ts for the method and
-// lower-bound.ts for the proof of how few posts suffice).
+// lower-bound-arrangement.ts and lower-bound.ts for the proofs of how few posts suffice).
 import type { Point, Room, Triangulation } from "../geometry/types";
 import { triangulate } from "../geometry/triangulate";
 import { planGuaranteed } from "./guaranteed";

@@ -58,7 +58,7 @@ export default async function (): Promise<string> {
   small.sort((a, b) => a - b);
   const median = small.length ? small[Math.floor(small.length / 2)] : NaN;
   return [
-    `Time limit ${TIME_LIMIT} s per room; lower bound: witness cells for single cover (lib/guarding/lower-bound-arrangement.ts; independent witnesses for double cover or pinned posts). Rooms run in file order in one process, so the first room also pays the JavaScript and WebAssembly warm-up.`,
+    `Time limit ${TIME_LIMIT} s per room; lower bound: witness cells for single cover (lib/guarding/lower-bound-arrangement.ts; independent witnesses for double cover). Rooms run in file order in one process, so the first room also pays the JavaScript and WebAssembly warm-up.`,
     "",
     "| summary | value |",
     "| --- | --- |",
