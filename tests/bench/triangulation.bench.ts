@@ -20,11 +20,13 @@ function cpuNow(): number {
   return (u.user + u.system) / 1000;
 }
 
-// A full garbage collection before every round, not timed: each round then starts from the same
-// heap and pays for the collections its own allocations cause, not for the other contender's
-// garbage (both leave plenty: earcut a node per vertex, we a triangle array per triangle).
+// A young-generation collection before every round, not timed: a round then does not pay for
+// collecting the short-lived garbage of the other contender's round (both leave plenty: earcut a
+// node per vertex, we an array per triangle). Not a full collection: right after one, V8 keeps its
+// limits low for a while, and code that allocates typed arrays on every call ran 5-20x slower.
 setFlagsFromString("--expose-gc");
-const collectGarbage = runInNewContext("gc") as () => void;
+const gc = runInNewContext("gc") as (options?: { type: "minor" | "major" }) => void;
+const collectGarbage = () => gc({ type: "minor" });
 
 interface Timing {
   ours: number;
@@ -38,7 +40,7 @@ interface Timing {
  * Median CPU milliseconds per call of each contender, measured in alternating rounds so both see
  * the same machine load; each round repeats a call until it has used at least 20 ms of CPU.
  */
-function timeBoth(ours: () => void, theirs: () => void, rounds = 7): Timing {
+function timeBoth(ours: () => void, theirs: () => void, rounds = 11): Timing {
   const round = (work: () => void): number => {
     collectGarbage();
     const t0 = cpuNow();
@@ -173,7 +175,7 @@ export default async function triangulationBench(): Promise<string> {
     }
   }
   return [
-    `Median CPU milliseconds per triangulation on this machine (2 cores, shared with other work; CPU time, 7 alternating rounds of at least 20 ms each, a full garbage collection before each round, not timed) (Node ${process.version}), ours (monotone pieces, exact predicates, validation not included) against earcut ${"3.x"} (which validates nothing) in the same run on the same rings. Ratio = median ours / median earcut (below 1: we are faster); ratio per round = lowest and highest ratio of one pair of rounds. Growth = time at n divided by time at n/10, ours / earcut. Triangles = ours / earcut's (earcut drops collinear corners, so it may make fewer).`,
+    `Median CPU milliseconds per triangulation on this machine (2 cores, shared with other work; CPU time, 11 alternating rounds of at least 20 ms each, a young-generation garbage collection before each round, not timed) (Node ${process.version}), ours (monotone pieces, exact predicates, validation not included) against earcut ${"3.x"} (which validates nothing) in the same run on the same rings. Ratio = median ours / median earcut (below 1: we are faster); ratio per round = lowest and highest ratio of one pair of rounds. Growth = time at n divided by time at n/10, ours / earcut. Triangles = ours / earcut's (earcut drops collinear corners, so it may make fewer).`,
     "",
     "| shape | corners n | ours ms | earcut ms | ratio | ratio per round | growth from n/10 | triangles |",
     "| --- | ---: | ---: | ---: | ---: | ---: | ---: | ---: |",
