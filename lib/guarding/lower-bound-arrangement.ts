@@ -1,15 +1,19 @@
-// A stronger lower bound for rooms where independent witnesses fall short: the witness problem
-// solved exactly (Tozoni, de Rezende & de Souza, ACM TOMS 2016, the "discretised dual"). Overlay the
-// visibility regions of witnesses w1..wk into cells; every point of a cell sees the same witnesses.
-// Any post stands in some cell, so the fewest cells whose witness sets together contain all k
-// witnesses (an integer program, HiGHS, solved to optimality) is a number of posts no plan can
-// beat: a plan that sees the room sees these witnesses.
+// The single-cover lower bound: the witness problem solved exactly (Tozoni, de Rezende & de Souza,
+// ACM TOMS 2016, the "discretised dual"). Overlay the visibility regions of witnesses w1..wk into
+// cells; every point of a cell sees the same witnesses. Any post stands in some cell, so the fewest
+// cells whose witness sets together contain all k witnesses (an integer program, after the
+// reductions of fewest-reduce.ts, solved to optimality) is a number of posts no plan can beat: a
+// plan that sees the room sees these witnesses. Any subset of the witnesses gives such a bound, so
+// the planner adds only the witnesses it needs (row generation, fewest-core.ts).
 //
 // Rounding: regions are grown by GROW_CELLS grid cells before the overlay, so a point on the
 // touching boundary of two regions (which sees both) falls into a thin cell holding both, and
 // rounding on the grid cannot drop a witness from a cell that should hold it. Growing only adds
 // witnesses to cells, which can only lower the bound, so it stays a proof. Witnesses are added
-// one at a time; when time runs out the overlay of the witnesses added so far is complete and used.
+// one at a time; when a limit cuts, the overlay of the witnesses added so far is complete and used.
+// Most cells are found wholly inside or outside a region by a window clip (clipToWindow, against)
+// and need no Clipper call; tests/sightlines/witness-cells.test.ts checks the cells' labels against
+// an independent sampler.
 import type { Point, Room } from "../geometry/types";
 import { pointInside, type Region } from "../geometry/coverage";
 import { clipPaths, gridScale, growPaths, toPaths, type IntPoint } from "../geometry/coverage-clipper";
