@@ -8,12 +8,12 @@
 //   or exactly reversed in linear time (the teeth of a comb come that way), any other by merging.
 
 /** Below this many corners the merge sort is faster than the radix sort's fixed cost. */
-const RADIX_FROM = 160;
+const RADIX_FROM = 256;
 /** From this many corners on, three 11-bit digits; below, four 8-bit digits (smaller counts to clear). */
 const WIDE_DIGITS_FROM = 8192;
 const MAX_BUCKETS = 1 << 11;
 /** Insertion sort below this run length. */
-const SHORT_RUN = 12;
+const SHORT_RUN = 16;
 
 /** Whether typed arrays store a float64's high word second (the radix sort reads it). */
 const LITTLE_ENDIAN = new Uint8Array(new Uint16Array([1]).buffer)[0] === 1;

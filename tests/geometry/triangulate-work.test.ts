@@ -66,7 +66,7 @@ describe("sweep order (lib/geometry/sweep-order.ts) against Array#sort", () => {
     fc.double({ min: -1e6, max: 1e6, noNaN: true, noDefaultInfinity: true }),
     fc.constantFrom(0, -0, 5e-324, -5e-324, 1e-300, 0.1, 0.1 + 2 ** -56, 0.1 - 2 ** -56, 1, 1 + 2 ** -20, 1 - 2 ** -21, -1 - 2 ** -20, 100, 100 + 2 ** -46),
   );
-  it("small and medium rooms (merge sort below 160 corners, radix sort with 8-bit digits above)", () => {
+  it("small and medium rooms (merge sort below 256 corners, radix sort with 8-bit digits above)", () => {
     fc.assert(
       // size "max": lengths spread up to 1,500 (the default would keep them near 10).
       fc.property(fc.array(fc.tuple(coordinate, coordinate), { maxLength: 1500, size: "max" }), (raw) => {
