@@ -5,19 +5,19 @@
 // (HiGHS, after the set-cover reductions of fewest-reduce.ts) picks the fewest candidates that see
 // every witness; the coverage certificate then checks the whole room, and each unseen part adds a
 // witness, until nothing is unseen.
-// Lower bound, single cover: the pinned posts plus the witness problem solved exactly over the
-// overlay of a subset S of the witnesses' regions (lower-bound-arrangement.ts), S holding only
-// witnesses no pinned post sees. S grows by row generation: the witnesses the bound's posts (a
-// point in each chosen cell) miss join it; when the posts see every witness they are certified,
-// and if they see the room the plan meets the bound (Tozoni et al.'s loop). Double cover:
-// independent witnesses (lower-bound.ts). Anytime: at the time limit the best certified plan so far is returned with its bound.
+// Lower bound: the pinned posts plus the witness problem solved exactly over the overlay of a
+// subset S of the witnesses' regions (lower-bound-arrangement.ts; each witness seen twice for
+// double cover), S holding only witnesses no pinned post sees. S grows by row generation: the
+// witnesses the bound's posts (a point in each chosen cell) miss join it; when the posts see every
+// witness they are certified, and if they see the room the plan meets the bound (Tozoni et al.'s
+// loop). Anytime: at the time limit the best certified plan so far is returned with its bound.
 import type { Point, Ring, Room, Triangulation } from "../geometry/types";
 import { createSightlines, type Sightlines } from "../geometry/visibility";
 import { clipToSightRange, discCorners } from "../geometry/visibility-range";
 import { certifyCoverage, pointInside, ringArea, roomRegion, type CoverageCertificate, type Region } from "../geometry/coverage";
 import { createWitnessCells } from "./lower-bound-arrangement";
-import { allowedPost, checkConstraints, insideClosedRing, type ConstraintProblem, type PostConstraints } from "./constraints";
-import { independentWitnessBound, type BoundWitness, type LowerBound } from "./lower-bound";
+import { allowedPost, checkConstraints, type ConstraintProblem, type PostConstraints } from "./constraints";
+import type { LowerBound } from "./lower-bound";
 import { solveCover } from "./fewest-reduce";
 
 export interface FewestOptions extends PostConstraints {
@@ -40,8 +40,9 @@ export interface FewestPlan {
   /** Witnesses that prove the lower bound. */
   boundWitnesses: Point[];
   /**
-   * Which proof: "independent witnesses" (pairwise disjoint regions, lower-bound.ts) or "witness
-   * cells" (the fewest posts that can see the witnesses, over their regions' overlay; lower-bound-arrangement.ts).
+   * Which proof: "witness cells" (the fewest posts that can see the witnesses, over their regions'
+   * overlay; lower-bound-arrangement.ts), which the planner now always uses; "independent
+   * witnesses" (pairwise disjoint regions, lower-bound.ts) is kept for plans stored before.
    */
   boundMethod: "independent witnesses" | "witness cells";
   witnesses: number;
@@ -65,10 +66,6 @@ export const WORK_LIMITS = {
   laterRounds: 40,
   /** Branch-and-bound nodes per integer program (HiGHS mip_max_nodes). */
   solverNodes: 20000,
-  /** Witnesses offered to the independent-witness bound (double cover), smallest regions first. */
-  packingWitnesses: 1500,
-  /** Nodes for the packing's integer program (weak relaxation: its nodes rarely pay; cells do better). */
-  packingNodes: 300,
   /** Boolean operations (Clipper calls on cells a region boundary crosses) per growth of the overlay. */
   cellClips: 40000,
   /** Rounds of the witness-cell loop: bound, missed witnesses join the overlay, posts certified. */
@@ -263,7 +260,7 @@ export function planFewestOver(
 
   // The best lower bound so far and which proof gave it.
   let proof: LowerBound = { bound: pinned.length, witnesses: [] };
-  let boundMethod: FewestPlan["boundMethod"] = "independent witnesses";
+  let boundMethod: FewestPlan["boundMethod"] = "witness cells";
   let rounds = 0;
   let stoppedBy: FewestPlan["stoppedBy"] = "time-limit";
   const pinnedIndex = pinned.map((p) => candidateKeys.get(key(p))!).filter((i) => i !== undefined);
@@ -313,172 +310,111 @@ export function planFewestOver(
     }
   }
 
-  // Extra witnesses for the bound only, on the walls close to each corner (small regions pack well).
-  const packingPoints: { point: Point; ring: Ring }[] = [];
-  for (const ring of [room.outline, ...room.obstacles]) {
-    for (let i = 0; i < ring.length; i++) {
-      const a = ring[i], b = ring[(i + 1) % ring.length];
-      for (const t of [0.1, 0.9]) {
-        const p: Point = [a[0] + t * (b[0] - a[0]), a[1] + t * (b[1] - a[1])];
-        const seen = sight(p);
-        if (seen) packingPoints.push({ point: p, ring: seen });
-      }
-    }
-  }
-
-  function lowerBound() {
-    // The lower bound over every witness used plus the packing points.
-    const pinnedRegions = pinned.map((p) => {
-      const ring = sight(p);
-      return !ring ? [] : range ? clipToSightRange(ring, p, range, "circumscribed") : [[ring]];
-    });
-    const pool = [...witnesses, ...packingPoints];
-    // Candidate posts seeing each pooled point: two points seen from one post surely conflict.
-    const words = (candidates.length + 31) >>> 5;
-    const seenFrom = (list: number[]) => {
-      const bits = new Uint32Array(words);
-      for (const c of list) bits[c >>> 5] |= 1 << (c & 31);
-      return bits;
-    };
-    const boundWitnesses: BoundWitness[] = pool.map((w, i) => {
-      const seenByPinned = pinnedRegions.filter((region) => region.some((polygon) => insideClosedRing(w.point, polygon[0]))).length;
-      const shape = i < witnesses.length ? witnesses[i] : boxed(w.point, w.ring);
-      return {
-        point: w.point,
-        region: range ? clipToSightRange(w.ring, w.point, range, "circumscribed") : [[w.ring]],
-        weight: Math.max(0, demand - seenByPinned),
-        seenFrom: seenFrom(i < witnesses.length ? seenBy[i] : candidates.flatMap((c, j) => (sees(shape, c) ? [j] : []))),
-      };
-    });
-    return independentWitnessBound(boundWitnesses, {
-      scale,
-      pinned: pinned.length,
-      seconds: Math.max(0.3, secondsLeft()),
-      maxWitnesses: WORK_LIMITS.packingWitnesses,
-      nodes: WORK_LIMITS.packingNodes,
-    });
-  }
-
   coverRounds(WORK_LIMITS.firstRounds);
   T(`first rounds done best=${best?.posts.length}`);
-  // Single cover: the witness-cell bound (lower-bound-arrangement.ts), which subsumes any packing
-  // of the same witnesses. Double cover: independent witnesses (lower-bound.ts).
-  const cellsApply = demand === 1;
-  if (!cellsApply) {
-    proof = lowerBound();
-    T(`packing bound ${proof.bound}`);
-    // Anytime improvement while the bound and the plan disagree: more candidate posts, at the far
-    // ends of the witnesses' shadow edges (where the faces of their visibility arrangement meet the
-    // walls), then at the middle of every region edge; each time the witnesses grow as needed.
-    for (let step = 1; step <= 2 && best && proof.bound < best.posts.length && searchSecondsLeft() > 0; step++) {
+  // The bound: witness cells (lower-bound-arrangement.ts), which subsume any packing of the same
+  // witnesses (lower-bound.ts, independent witnesses, is no longer needed here).
+  // The best plan's size, or no limit while no plan is certified yet.
+  const planSize = () => best?.posts.length ?? Infinity;
+  // Tozoni et al.'s loop over one overlay that grows with the witnesses it needs (row generation):
+  // the bound over a subset S of the witnesses is a proof by itself, since every witness set gives
+  // one. The bound's posts (a point in each chosen cell) are checked against all witnesses; those
+  // they miss join S, because with them the bound may rise. When the posts see every witness, S
+  // gives the bound of all of them; then the posts are certified: if they see the room the plan
+  // meets the bound, else their gaps become witnesses and posts, and the cover rounds go again.
+  // Pinned posts are in every plan; the others must see every witness no pinned post sees (twice
+  // for double cover). A witness joins S only when every pinned post stands clearly outside its
+  // region (farther than 1e-9 of the room's size, or beyond the sight range), so it surely needs
+  // `demand` other posts, and the bound is the pinned count plus the cell bound over S.
+  const margin = 1e-9 * scale;
+  const eligible = new Map<number, boolean>();
+  const unseenByPinned = (i: number): boolean => {
+    if (!eligible.has(i)) {
+      const w = witnesses[i];
+      eligible.set(i, pinned.every((p) => (range && Math.hypot(p[0] - w.point[0], p[1] - w.point[1]) > range * (1 + 1e-9) + margin) || clearlyOutside(p, w.ring, margin)));
+    }
+    return eligible.get(i)!;
+  };
+  const overlay = createWitnessCells(room);
+  const inOverlay: Point[] = [];
+  const inS = new Set<string>();
+  const regionAt = (p: Point, ring: Ring): Region => (range ? clipToSightRange(ring, p, range, "circumscribed") : [[ring]]);
+  // Seeds: a greedy packing by the candidates (fewest-seen witnesses first, none sharing a post).
+  const words = (candidates.length + 31) >>> 5;
+  const taken = new Uint32Array(words);
+  let waiting: number[] = [];
+  for (const i of witnesses.map((_, i) => i).sort((a, b) => seenBy[a].length - seenBy[b].length || a - b)) {
+    if (!unseenByPinned(i)) continue;
+    if (seenBy[i].some((c) => (taken[c >>> 5] & (1 << (c & 31))) !== 0)) continue;
+    for (const c of seenBy[i]) taken[c >>> 5] |= 1 << (c & 31);
+    waiting.push(i);
+  }
+  let stalls = 0;
+  for (let round = 0; round < WORK_LIMITS.cellRounds && proof.bound < planSize() && secondsLeft() > 0; round++) {
+    const regions = waiting.map((i) => regionAt(witnesses[i].point, witnesses[i].ring));
+    const count = overlay.add(regions, { clips: WORK_LIMITS.cellClips, stopAt: deadline });
+    for (const i of waiting.slice(0, count)) {
+      inOverlay.push(witnesses[i].point);
+      inS.add(key(witnesses[i].point));
+    }
+    const complete = count === waiting.length;
+    const dual = overlay.solve({ seconds: secondsLeft() + 0.5, nodes: WORK_LIMITS.solverNodes, demand });
+    // How many of the bound's posts see a witness (a cell chosen twice counts twice).
+    const watching = (w: (typeof witnesses)[number]) => dual.posts.reduce((n, p) => n + (sees(w, p) ? 1 : 0), 0);
+    T(`cells round ${round}: S ${inOverlay.length}/${witnesses.length} (added ${count}/${waiting.length}), bound ${dual.bound}, plan ${planSize()}`);
+    if (pinned.length + dual.bound > proof.bound) {
+      proof = { bound: pinned.length + dual.bound, witnesses: [...inOverlay] };
+      boundMethod = "witness cells";
+    }
+    if (proof.bound >= planSize() || dual.posts.length === 0 || !complete) break;
+    // Row generation: the witnesses the bound's posts miss.
+    const missed = witnesses.flatMap((w, i) => (!inS.has(key(w.point)) && unseenByPinned(i) && watching(w) < demand ? [i] : []));
+    if (missed.length > 0) {
+      waiting = missed.sort((a, b) => Math.abs(ringArea(witnesses[a].ring)) - Math.abs(ringArea(witnesses[b].ring)) || a - b);
+      continue;
+    }
+    // The posts see every witness: certify them against the whole room.
+    for (const p of dual.posts) addCandidate(p);
+    // When this keeps failing, more candidates: the corners of the witnesses' regions (the ends
+    // of their shadow edges, where optimal posts of orthogonal rooms stand), later the middles
+    // of their shadow edges (edges along a wall add nothing a corner does not).
+    stalls++;
+    if (stalls === 2 || stalls === 4) {
       for (const w of [...witnesses]) {
         for (let i = 0; i < w.ring.length; i++) {
           const a = w.ring[i], b = w.ring[(i + 1) % w.ring.length];
-          addCandidate(step === 1 ? a : [(a[0] + b[0]) / 2, (a[1] + b[1]) / 2]);
-        }
-      }
-      coverRounds(WORK_LIMITS.laterRounds);
-      const again = lowerBound();
-      if (again.bound > proof.bound) proof = again;
-    }
-  } else {
-    // The best plan's size, or no limit while no plan is certified yet.
-    const planSize = () => best?.posts.length ?? Infinity;
-    // Tozoni et al.'s loop over one overlay that grows with the witnesses it needs (row generation):
-    // the bound over a subset S of the witnesses is a proof by itself, since every witness set gives
-    // one. The bound's posts (a point in each chosen cell) are checked against all witnesses; those
-    // they miss join S, because with them the bound may rise. When the posts see every witness, S
-    // gives the bound of all of them; then the posts are certified: if they see the room the plan
-    // meets the bound, else their gaps become witnesses and posts, and the cover rounds go again.
-    // Pinned posts are in every plan; the others must see every witness no pinned post sees. A
-    // witness joins S only when every pinned post stands clearly outside its region (farther than
-    // 1e-9 of the room's size, or beyond the sight range), so it surely needs another post, and the
-    // bound is the pinned count plus the cell bound over S.
-    const margin = 1e-9 * scale;
-    const eligible = new Map<number, boolean>();
-    const unseenByPinned = (i: number): boolean => {
-      if (!eligible.has(i)) {
-        const w = witnesses[i];
-        eligible.set(i, pinned.every((p) => (range && Math.hypot(p[0] - w.point[0], p[1] - w.point[1]) > range * (1 + 1e-9) + margin) || clearlyOutside(p, w.ring, margin)));
-      }
-      return eligible.get(i)!;
-    };
-    const overlay = createWitnessCells(room);
-    const inOverlay: Point[] = [];
-    const inS = new Set<string>();
-    const regionAt = (p: Point, ring: Ring): Region => (range ? clipToSightRange(ring, p, range, "circumscribed") : [[ring]]);
-    // Seeds: a greedy packing by the candidates (fewest-seen witnesses first, none sharing a post).
-    const words = (candidates.length + 31) >>> 5;
-    const taken = new Uint32Array(words);
-    let waiting: number[] = [];
-    for (const i of witnesses.map((_, i) => i).sort((a, b) => seenBy[a].length - seenBy[b].length || a - b)) {
-      if (!unseenByPinned(i)) continue;
-      if (seenBy[i].some((c) => (taken[c >>> 5] & (1 << (c & 31))) !== 0)) continue;
-      for (const c of seenBy[i]) taken[c >>> 5] |= 1 << (c & 31);
-      waiting.push(i);
-    }
-    let stalls = 0;
-    for (let round = 0; round < WORK_LIMITS.cellRounds && proof.bound < planSize() && secondsLeft() > 0; round++) {
-      const regions = waiting.map((i) => regionAt(witnesses[i].point, witnesses[i].ring));
-      const count = overlay.add(regions, { clips: WORK_LIMITS.cellClips, stopAt: deadline });
-      for (const i of waiting.slice(0, count)) {
-        inOverlay.push(witnesses[i].point);
-        inS.add(key(witnesses[i].point));
-      }
-      const complete = count === waiting.length;
-      const dual = overlay.solve({ seconds: secondsLeft() + 0.5, nodes: WORK_LIMITS.solverNodes });
-      T(`cells round ${round}: S ${inOverlay.length}/${witnesses.length} (added ${count}/${waiting.length}), bound ${dual.bound}, plan ${planSize()}`);
-      if (pinned.length + dual.bound > proof.bound) {
-        proof = { bound: pinned.length + dual.bound, witnesses: [...inOverlay] };
-        boundMethod = "witness cells";
-      }
-      if (proof.bound >= planSize() || dual.posts.length === 0 || !complete) break;
-      // Row generation: the witnesses the bound's posts miss.
-      const missed = witnesses.flatMap((w, i) => (!inS.has(key(w.point)) && unseenByPinned(i) && !dual.posts.some((p) => sees(w, p)) ? [i] : []));
-      if (missed.length > 0) {
-        waiting = missed.sort((a, b) => Math.abs(ringArea(witnesses[a].ring)) - Math.abs(ringArea(witnesses[b].ring)) || a - b);
-        continue;
-      }
-      // The posts see every witness: certify them against the whole room.
-      for (const p of dual.posts) addCandidate(p);
-      // When this keeps failing, more candidates: the corners of the witnesses' regions (the ends
-      // of their shadow edges, where optimal posts of orthogonal rooms stand), later the middles
-      // of their shadow edges (edges along a wall add nothing a corner does not).
-      stalls++;
-      if (stalls === 2 || stalls === 4) {
-        for (const w of [...witnesses]) {
-          for (let i = 0; i < w.ring.length; i++) {
-            const a = w.ring[i], b = w.ring[(i + 1) % w.ring.length];
-            if (stalls === 2) addCandidate(a);
-            else {
-              const middle: Point = [(a[0] + b[0]) / 2, (a[1] + b[1]) / 2];
-              if (!onWall(middle)) addCandidate(middle);
-            }
+          if (stalls === 2) addCandidate(a);
+          else {
+            const middle: Point = [(a[0] + b[0]) / 2, (a[1] + b[1]) / 2];
+            if (!onWall(middle)) addCandidate(middle);
           }
         }
       }
-      // Tozoni et al.'s candidates: a point in every light cell of the overlay.
-      for (const p of dual.lightPosts()) addCandidate(p);
-      const cellPosts = dual.posts.filter((p) => candidateKeys.has(key(p)));
-      const witnessesBefore = witnesses.length;
-      if (cellPosts.length === dual.posts.length && pinned.length + cellPosts.length < planSize()) {
-        const certificate = certify([...pinned, ...cellPosts]);
-        if (certificate.covered === 1) {
-          best = { posts: [...pinned, ...cellPosts], certificate };
-          break;
-        }
-        for (const polygon of certificate.uncovered) {
-          const p = pointInside(polygon);
-          addWitness(p);
-          addCandidate(p);
-        }
-      }
-      // The plan's search goes again on the first failure and then on every third: in between the
-      // gaps' witnesses mostly lift the bound, and a cover program that finds nothing costs most.
-      if (stalls === 1 || stalls % 3 === 0) coverRounds(WORK_LIMITS.laterRounds, secondsLeft);
-      waiting = witnesses.flatMap((w, i) => (!inS.has(key(w.point)) && unseenByPinned(i) && !dual.posts.some((p) => sees(w, p)) ? [i] : []));
-      if (waiting.length === 0 && witnesses.length === witnessesBefore) break;
     }
+    // Tozoni et al.'s candidates: a point in every light cell of the overlay.
+    for (const p of dual.lightPosts()) addCandidate(p);
+    // (A cell chosen twice gives one point: such posts are candidates, but not a plan to certify.)
+    const cellPosts = [...new Map(dual.posts.map((p) => [key(p), p])).values()].filter((p) => candidateKeys.has(key(p)));
+    const witnessesBefore = witnesses.length;
+    if (cellPosts.length === dual.posts.length && pinned.length + cellPosts.length < planSize()) {
+      const certificate = certify([...pinned, ...cellPosts]);
+      if (certificate.covered === 1) {
+        best = { posts: [...pinned, ...cellPosts], certificate };
+        break;
+      }
+      for (const polygon of certificate.uncovered) {
+        const p = pointInside(polygon);
+        addWitness(p);
+        addCandidate(p);
+      }
+    }
+    // The plan's search goes again on the first failure, after each batch of new candidates and
+    // then on every third failure: in between the gaps' witnesses mostly lift the bound, and a
+    // cover program that finds nothing costs most.
+    if (stalls <= 2 || stalls === 4 || stalls % 3 === 0) coverRounds(WORK_LIMITS.laterRounds, secondsLeft);
+    waiting = witnesses.flatMap((w, i) => (!inS.has(key(w.point)) && unseenByPinned(i) && watching(w) < demand ? [i] : []));
+    // Nothing new to learn: stop once the candidate steps are spent.
+    if (waiting.length === 0 && witnesses.length === witnessesBefore && stalls >= 4) break;
   }
 
   const chosen = best ?? lastTry;

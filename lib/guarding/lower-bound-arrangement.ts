@@ -125,11 +125,12 @@ export interface WitnessCells {
    */
   add(regions: Region[], limits: { clips?: number; stopAt?: number }): number;
   /**
-   * The fewest cells that see every witness added so far (0 unless solved to optimality), with a
-   * point in each; `lightPosts` gives a point in every cell whose witness set no other cell's
-   * contains (Tozoni et al.'s light faces), candidate posts for the plan.
+   * The fewest posts in cells that see every witness added so far, each witness from `demand`
+   * posts (two posts may share a cell), 0 unless solved to optimality; with a point in each chosen
+   * cell (twice for a cell chosen twice). `lightPosts` gives a point in every cell whose witness
+   * set no other cell's contains (Tozoni et al.'s light faces), candidate posts for the plan.
    */
-  solve(limits: { seconds: number; nodes?: number }): { bound: number; witnesses: number; posts: Point[]; lightPosts: () => Point[] };
+  solve(limits: { seconds: number; nodes?: number; demand?: 1 | 2 }): { bound: number; witnesses: number; posts: Point[]; lightPosts: () => Point[] };
   /** The witnesses (by order added) of the cell holding a point of the room, or null outside. */
   labelAt(point: Point): number[] | null;
 }
@@ -205,29 +206,47 @@ export function createWitnessCells(room: Room): WitnessCells {
     return added;
   }
 
-  function solve(limits: { seconds: number; nodes?: number }) {
+  function solve(limits: { seconds: number; nodes?: number; demand?: 1 | 2 }) {
+    const demand = limits.demand ?? 1;
     if (used === 0) return { bound: 0, witnesses: 0, posts: [], lightPosts: () => [] };
-    // Only cells whose witness set no other cell's set contains matter to the minimum.
+    // Only cells whose witness set no other cell's set contains matter to the minimum (a post in
+    // the smaller cell can move to the larger one and see no less).
     const byKey = new Map(cells.map((c) => [c.sees.join(","), c]));
-    const sets = [...byKey.values()].sort((a, b) => b.sees.length - a.sees.length);
+    const sets = [...byKey.values()].filter((c) => c.sees.length > 0).sort((a, b) => b.sees.length - a.sees.length);
+    const words = (used + 31) >>> 5;
     const maximalCells: Cell[] = [];
+    const maximalBits: Uint32Array[] = [];
+    const holdingMaximal: number[][] = Array.from({ length: used }, () => []);
     for (const cell of sets) {
-      if (cell.sees.length === 0) continue;
-      if (!maximalCells.some((m) => cell.sees.every((w) => m.sees.includes(w)))) maximalCells.push(cell);
+      const bits = new Uint32Array(words);
+      for (const w of cell.sees) bits[w >>> 5] |= 1 << (w & 31);
+      // A larger set holding this one holds its rarest witness.
+      let rarest = cell.sees[0];
+      for (const w of cell.sees) if (holdingMaximal[w].length < holdingMaximal[rarest].length) rarest = w;
+      const within = holdingMaximal[rarest].some((m) => {
+        const other = maximalBits[m];
+        for (let i = 0; i < words; i++) if ((bits[i] & ~other[i]) !== 0) return false;
+        return true;
+      });
+      if (within) continue;
+      const m = maximalCells.length;
+      maximalCells.push(cell);
+      maximalBits.push(bits);
+      for (const w of cell.sees) holdingMaximal[w].push(m);
     }
-    const maximal = maximalCells.map((c) => c.sees);
-    const holding: number[][] = Array.from({ length: used }, () => []);
-    maximal.forEach((set, j) => set.forEach((w) => holding[w].push(j)));
-    if (holding.some((h) => h.length === 0)) return { bound: 0, witnesses: used, posts: [], lightPosts: () => [] };
+    if (holdingMaximal.some((h) => h.length === 0)) return { bound: 0, witnesses: used, posts: [], lightPosts: () => [] };
+    // Double cover: two posts may stand in one cell, so each cell is offered twice (columns j and
+    // j + M), and each witness needs two of the columns holding it.
+    const count = maximalCells.length;
     const answer = solveCover({
-      columns: maximal.length,
-      rows: holding.map((items) => ({ items, need: 1 })),
+      columns: demand * count,
+      rows: holdingMaximal.map((items) => ({ items: demand === 2 ? [...items, ...items.map((j) => j + count)] : items, need: demand })),
       seconds: Math.max(0.1, limits.seconds),
       nodes: limits.nodes,
     });
     // Only a proven optimum is a bound; an unfinished search only gives an upper value.
     const pointOf = (cell: Cell) => pointInside(cell.paths.map((path) => path.map((p) => [p.X / scale, p.Y / scale] as Point)));
-    const posts = answer.chosen.map((j) => pointOf(maximalCells[j]));
+    const posts = answer.chosen.map((j) => pointOf(maximalCells[j % count]));
     return { bound: answer.status === "optimal" ? answer.chosen.length : 0, witnesses: used, posts, lightPosts: () => maximalCells.map(pointOf) };
   }
 
