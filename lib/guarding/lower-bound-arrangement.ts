@@ -277,10 +277,10 @@ export function createWitnessCells(room: Room): WitnessCells {
 export function arrangementBound(
   room: Room,
   regions: Region[],
-  limits: { seconds: number; clips?: number; nodes?: number },
+  limits: { seconds: number; clips?: number; nodes?: number; demand?: 1 | 2 },
 ): { bound: number; witnesses: number; posts: Point[] } {
   const stopAt = performance.now() + 1000 * limits.seconds;
   const overlay = createWitnessCells(room);
   overlay.add(regions, { clips: limits.clips, stopAt });
-  return overlay.solve({ seconds: (stopAt - performance.now()) / 1000 + 0.5, nodes: limits.nodes });
+  return overlay.solve({ seconds: (stopAt - performance.now()) / 1000 + 0.5, nodes: limits.nodes, demand: limits.demand });
 }

@@ -38,5 +38,13 @@ describe("lower bounds never exceed a known minimum", () => {
       expect(cells.witnesses).toBe(witnesses.length);
       expect(cells.bound).toBe(minimum);
     });
+    // Double cover: every point seen by two posts. The comb needs 2k (no post sees two tips, each
+    // tip needs two; Chvátal 1975 twice); an L-shaped or convex room two (two points at the reflex
+    // corner, or anywhere). The cells offer each cell twice, so the bound must reach exactly that.
+    it(`${name}, double cover: the witness cells give exactly ${2 * minimum}`, () => {
+      const witnesses = witnessesOf(room, 40);
+      const cells = arrangementBound(room, witnesses.map((w) => w.region), { seconds: 20, demand: 2 });
+      expect(cells.bound).toBe(2 * minimum);
+    });
   }
 });
