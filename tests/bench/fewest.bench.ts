@@ -2,7 +2,7 @@
 // certificate, no worse than the guaranteed plan (the named peer, computed in the same run),
 // orthogonal rooms within floor(n/4) (Kahn, Klawe & Kleitman 1983), the share proven minimal for
 // n <= 200 (and proven within 5 s), and the time per room (median over rooms of up to 60 vertices,
-// the editor's case, and the slowest room).
+// the editor's case, and the slowest room); then double cover on a fixed spread of nine rooms.
 import { readFileSync, readdirSync } from "node:fs";
 import path from "node:path";
 import { fileURLToPath } from "node:url";
@@ -58,7 +58,7 @@ export default async function (): Promise<string> {
   small.sort((a, b) => a - b);
   const median = small.length ? small[Math.floor(small.length / 2)] : NaN;
   return [
-    `Time limit ${TIME_LIMIT} s per room; lower bound: witness cells for single cover (lib/guarding/lower-bound-arrangement.ts; independent witnesses for double cover). Rooms run in file order in one process, so the first room also pays the JavaScript and WebAssembly warm-up.`,
+    `Time limit ${TIME_LIMIT} s per room; lower bound: witness cells (lib/guarding/lower-bound-arrangement.ts). Rooms run in file order in one process, so the first room also pays the JavaScript and WebAssembly warm-up.`,
     "",
     "| summary | value |",
     "| --- | --- |",
@@ -73,5 +73,29 @@ export default async function (): Promise<string> {
     "| room | n | h | guaranteed | fewest | lower bound | proven | covered | orthogonal <= floor(n/4) | ms |",
     "| --- | ---: | ---: | ---: | ---: | ---: | --- | --- | --- | ---: |",
     ...rows,
+    "",
+    `Double cover (every point seen by two posts; the guaranteed plan is no peer here) on ${DOUBLE_COVER_ROOMS.length} of the rooms, covered twice by the certificate:`,
+    "",
+    "| room | n | fewest | lower bound | proven | covered twice | ms |",
+    "| --- | ---: | ---: | ---: | --- | --- | ---: |",
+    ...doubleCoverRows(),
   ].join("\n");
+}
+
+/** A spread of sizes and kinds, fixed so runs compare. */
+const DOUBLE_COVER_ROOMS = ["random-20-1", "random-40-2", "randsimple-40-1", "randsimple-60-3", "random-100-1", "randsimple-100-2", "gB_simple-simple_25_100v-10h_4", "vonkoch-20-1", "randsimple-200-4"];
+
+function doubleCoverRows(): string[] {
+  return DOUBLE_COVER_ROOMS.map((name) => {
+    const feature = JSON.parse(readFileSync(path.join(folder, `${name}.geojson`), "utf8"));
+    const rings = feature.geometry.coordinates as Point[][];
+    const prepared = prepareRoom({ outline: rings[0], obstacles: rings.slice(1) });
+    if (!prepared.ok) return `| ${name} | invalid: ${prepared.problems[0].message} |`;
+    const room = prepared.room;
+    const n = room.outline.length + room.obstacles.reduce((s, o) => s + o.length, 0);
+    const t0 = performance.now();
+    const plan = planFewest(room, { doubleCover: true, timeLimit: TIME_LIMIT });
+    const ms = performance.now() - t0;
+    return `| ${name} | ${n} | ${plan.posts.length} | ${plan.lowerBound} | ${plan.proven ? "yes" : "no"} | ${plan.covered === 1 ? "1" : plan.covered.toFixed(6)} | ${Math.round(ms)} |`;
+  });
 }
