@@ -1,8 +1,8 @@
 // Set-cover reductions before every integer program of the fewest plan (the classic preprocessing
-// of set covering: Garfinkel & Nemhauser, "Integer Programming", Wiley 1972, ch. 8; used for the art
-// gallery problem by Tozoni, de Rezende & de Souza, ACM TOMS 2016). Rows are witnesses (each needs
-// `need` chosen columns among its items), columns are candidate posts of unit weight. Repeated
-// to a fixpoint:
+// of set covering: Garfinkel & Nemhauser, "Integer Programming", Wiley 1972, set-covering chapter,
+// as recalled; used for the art gallery problem by Tozoni, de Rezende & de Souza, ACM TOMS 2016).
+// Rows are witnesses (each needs `need` chosen columns among its items), columns are candidate
+// posts of unit weight. Repeated to a fixpoint:
 // 1. Forced columns: a row with exactly `need` items takes all of them (no other way to meet it).
 // 2. Row domination: if row a's items are a subset of row b's and need(a) >= need(b), every
 //    choice that meets a meets b, so b is dropped (of two equal rows the later one goes).
@@ -265,7 +265,7 @@ export const SEARCH_NODES = 600;
  * tried is barred from its later siblings, whose plans without it are all that is left), pruned by
  * a packing bound (open rows with pairwise disjoint usable columns each need a column of their
  * own). An exact search: the classic branching for set covering (Garfinkel & Nemhauser 1972,
- * ch. 8). Null when the node budget runs out.
+ * as recalled). Null when the node budget runs out.
  */
 export function searchCover(columnCount: number, rows: number[][], most: number, maxNodes: number): number[] | "infeasible" | null {
   const rowCount = rows.length;

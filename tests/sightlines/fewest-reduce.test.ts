@@ -1,8 +1,9 @@
 // The set-cover reductions (forced columns, row and column domination: the classic set-covering
-// preprocessing, Garfinkel & Nemhauser 1972, ch. 8; Tozoni, de Rezende & de Souza, ACM TOMS 2016)
-// and the exact search that follows them keep the optimum: on random covering programs the reduced program's optimum plus its forced
-// columns equals the optimum found by exhaustive search over every subset of columns (the outside
-// reference: plain enumeration, no solver), and the answer meets every row.
+// preprocessing, Garfinkel & Nemhauser 1972, set-covering chapter, as recalled; Tozoni, de Rezende
+// & de Souza, ACM TOMS 2016) and the exact search that follows them keep the optimum: on random
+// covering programs the reduced program's optimum plus its forced columns equals the optimum found
+// by exhaustive search over every subset of columns (the outside reference: plain enumeration, no
+// solver), and the answer meets every row.
 import { describe, expect, it } from "vitest";
 import { reduceCover, searchCover, solveCover, type CoverRow } from "@/lib/guarding/fewest-reduce";
 
