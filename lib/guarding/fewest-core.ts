@@ -314,8 +314,7 @@ export function planFewestOver(
   T(`first rounds done best=${best?.posts.length}`);
   // The bound: witness cells (lower-bound-arrangement.ts), which subsume any packing of the same
   // witnesses (lower-bound.ts, independent witnesses, is no longer needed here).
-  // The best plan's size, or no limit while no plan is certified yet.
-  const planSize = () => best?.posts.length ?? Infinity;
+  const planSize = () => best?.posts.length ?? Infinity; // no limit while no plan is certified
   // Tozoni et al.'s loop over one overlay that grows with the witnesses it needs (row generation):
   // the bound over a subset S of the witnesses is a proof by itself, since every witness set gives
   // one. The bound's posts (a point in each chosen cell) are checked against all witnesses; those
