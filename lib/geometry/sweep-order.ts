@@ -36,7 +36,8 @@ export class SweepOrderWork {
 
   ensure(n: number): void {
     if (n <= this.capacity) return;
-    const capacity = Math.max(n, 2 * this.capacity, 64);
+    // Room to grow up to 65,536 corners; beyond, exactly the size.
+    const capacity = Math.max(n, Math.min(2 * this.capacity, 1 << 16), 64);
     this.capacity = capacity;
     this.spare = new Int32Array(capacity);
     this.keys = new Uint32Array(capacity);

@@ -106,7 +106,8 @@ let shared = new TriangulationWork(64);
 const KEEP_LARGE_WORK = 1 << 16;
 
 function workFor(n: number): TriangulationWork {
-  if (n > shared.capacity) shared = new TriangulationWork(Math.max(n, Math.min(2 * shared.capacity, 1 << 20)));
+  // Room to grow up to KEEP_LARGE_WORK corners; beyond, exactly the size (about 220 bytes a corner).
+  if (n > shared.capacity) shared = new TriangulationWork(Math.max(n, Math.min(2 * shared.capacity, KEEP_LARGE_WORK)));
   else if (shared.capacity > KEEP_LARGE_WORK && 8 * n < shared.capacity) shared = new TriangulationWork(Math.max(64, 2 * n));
   return shared;
 }
