@@ -60,7 +60,7 @@ class TriangulationWork {
   readonly order: Int32Array;
   readonly kind: Uint8Array;
   readonly helper: Int32Array;
-  /** Diagonals: corners 2i and 2i + 1 are the ends of diagonal i (at most one per corner). */
+  /** Diagonals: corners 2i and 2i + 1 are the ends of diagonal i (at most n: one per split or merge corner). */
   readonly ends: Int32Array;
   /** Edges around corners with diagonals: around[offset[v] .. offset[v + 1]), counter-clockwise. */
   readonly offset: Int32Array;
