@@ -6,18 +6,7 @@
 // solver), and the answer meets every row.
 import { describe, expect, it } from "vitest";
 import { reduceCover, searchCover, solveCover, type CoverRow } from "@/lib/guarding/fewest-reduce";
-
-/** A small deterministic generator (mulberry32, common practice) so failures repeat. */
-function random(seed: number) {
-  let a = seed >>> 0;
-  return () => {
-    a = (a + 0x6d2b79f5) >>> 0;
-    let t = a;
-    t = Math.imul(t ^ (t >>> 15), t | 1);
-    t ^= t + Math.imul(t ^ (t >>> 7), t | 61);
-    return ((t ^ (t >>> 14)) >>> 0) / 4294967296;
-  };
-}
+import { seededRandom as random } from "../geometry/support/oracle";
 
 function randomProgram(seed: number, doubleRows: boolean) {
   const next = random(seed);
