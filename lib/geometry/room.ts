@@ -239,7 +239,7 @@ class CrossingFound {
 
 /**
  * Shamos & Hoey (1976) sweep, left to right in lexicographic (x, y) order with exact predicates:
- * walls in an ordered status (skip list), each wall checked against its neighbours whenever they
+ * walls in an ordered status (AVL tree), each wall checked against its neighbours whenever they
  * become adjacent; stops at the first pair that crosses, touches or overlaps. O(n log n).
  * When no walls meet, the same sweep tells which ring directly contains each ring (the first wall
  * below a ring's leftmost vertex), so obstacles outside the outline or inside another obstacle are

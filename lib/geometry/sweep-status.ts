@@ -1,47 +1,43 @@
-// The ordered "status" of a plane sweep (the walls crossing the sweep line, left to right): a skip
-// list (Pugh 1990), so every insert, removal and search costs O(log n) expected and a whole sweep
-// stays O(n log n) instead of the O(n^2) of a linear scan.
-
-const MAX_LEVEL = 32;
+// The ordered "status" of a plane sweep (the walls crossing the sweep line, left to right): an AVL
+// tree (Adelson-Velsky & Landis 1962), a binary search tree whose two subtrees under any entry
+// differ in height by at most one, so its height stays below 1.4405 log2(n + 2) - 0.3277 (the
+// AVL bound, Knuth, The Art of Computer Programming vol. 3, 6.2.3, as recalled) whatever the order
+// of the walls: every insert, removal and search costs O(log n) in the worst case, and a whole
+// sweep O(n log n) worst case, with no random choice an adversary could play against. Each entry
+// also links to its neighbours left and right, so before/after/replace cost O(1).
 
 /** One entry of the status; keep it to remove the entry or find its neighbours later. */
 export interface StatusNode<T> {
   readonly item: T;
-  next: (StatusNode<T> | null)[];
-  prev: (StatusNode<T> | null)[];
 }
 
-export class SweepStatus<T> {
-  private readonly head: StatusNode<T>;
-  private level = 1;
-  private seed: number;
-  private count = 0;
-  /** Scratch array for insert: the last entry before the new one on each level. */
-  private readonly update: StatusNode<T>[] = new Array(MAX_LEVEL);
+/** A tree node: its place in the tree and, for O(1) neighbours, in the left-to-right order. */
+class TreeNode<T> implements StatusNode<T> {
+  left: TreeNode<T> | null = null;
+  right: TreeNode<T> | null = null;
+  parent: TreeNode<T> | null = null;
+  /** Entries on the longest path down from here, this one included (a leaf: 1). */
+  height = 1;
+  before: TreeNode<T> | null = null;
+  after: TreeNode<T> | null = null;
+  constructor(readonly item: T) {}
+}
 
-  constructor(seed = 0x9e3779b9) {
-    this.head = { item: undefined as unknown as T, next: new Array(MAX_LEVEL).fill(null), prev: [] };
-    // A fixed seed keeps runs reproducible; the skip list's balance does not depend on input order.
-    this.seed = seed >>> 0 || 1;
-  }
+const heightOf = <T>(node: TreeNode<T> | null): number => (node === null ? 0 : node.height);
+
+export class SweepStatus<T> {
+  private root: TreeNode<T> | null = null;
+  private first: TreeNode<T> | null = null;
+  private last: TreeNode<T> | null = null;
+  private count = 0;
 
   get size(): number {
     return this.count;
   }
 
-  /** Random level with probability 1/2 per extra level (xorshift32: fast, deterministic). */
-  private randomLevel(): number {
-    let level = 1;
-    while (level < MAX_LEVEL) {
-      let x = this.seed;
-      x ^= x << 13;
-      x ^= x >>> 17;
-      x ^= x << 5;
-      this.seed = x >>> 0;
-      if ((this.seed & 1) === 0) break;
-      level++;
-    }
-    return level;
+  /** Height of the tree (0 when empty): for tests of the AVL bound. */
+  get height(): number {
+    return heightOf(this.root);
   }
 
   /**
@@ -49,178 +45,250 @@ export class SweepStatus<T> {
    * monotone along the status: true for a prefix of the entries, false for the rest.
    */
   lastWhere<Q>(isBefore: (item: T, probe: Q) => boolean, probe?: Q): StatusNode<T> | null {
-    let x = this.head;
-    for (let l = this.level - 1; l >= 0; l--) {
-      for (let n = x.next[l]; n !== null && isBefore(n.item, probe as Q); n = x.next[l]) x = n;
+    let found: TreeNode<T> | null = null;
+    for (let x = this.root; x !== null; ) {
+      if (isBefore(x.item, probe as Q)) {
+        found = x;
+        x = x.right;
+      } else x = x.left;
     }
-    return x === this.head ? null : x;
+    return found;
   }
 
   /**
    * Insert `item` right after the entries for which `isBefore` holds (monotone, as in lastWhere).
-   * `probe` is passed to isBefore, so hot loops need not build a closure per call.
+   * `probe` is passed to isBefore, so hot loops need not build a closure per call. When isBefore
+   * throws, the status is left as it was.
    */
   insert<Q>(item: T, isBefore: (other: T, probe: Q) => boolean, probe?: Q): StatusNode<T> {
-    const update = this.update;
-    let x = this.head;
-    for (let l = this.level - 1; l >= 0; l--) {
-      for (let n = x.next[l]; n !== null && isBefore(n.item, probe as Q); n = x.next[l]) x = n;
-      update[l] = x;
+    let parent: TreeNode<T> | null = null;
+    let toRight = false;
+    let before: TreeNode<T> | null = null;
+    let after: TreeNode<T> | null = null;
+    for (let x = this.root; x !== null; ) {
+      parent = x;
+      toRight = isBefore(x.item, probe as Q);
+      if (toRight) {
+        before = x;
+        x = x.right;
+      } else {
+        after = x;
+        x = x.left;
+      }
     }
-    const level = this.randomLevel();
-    if (level > this.level) {
-      for (let l = this.level; l < level; l++) update[l] = this.head;
-      this.level = level;
-    }
-    const node: StatusNode<T> = { item, next: new Array(level), prev: new Array(level) };
-    for (let l = 0; l < level; l++) {
-      const after = update[l];
-      const following = after.next[l];
-      node.next[l] = following;
-      node.prev[l] = after;
-      after.next[l] = node;
-      if (following !== null) following.prev[l] = node;
-    }
+    const node = new TreeNode(item);
+    node.parent = parent;
+    if (parent === null) this.root = node;
+    else if (toRight) parent.right = node;
+    else parent.left = node;
+    node.before = before;
+    node.after = after;
+    if (before === null) this.first = node;
+    else before.after = node;
+    if (after === null) this.last = node;
+    else after.before = node;
     this.count++;
+    this.rebalance(parent);
     return node;
   }
 
   /** Remove an entry returned by insert. */
-  remove(node: StatusNode<T>): void {
-    for (let l = 0; l < node.next.length; l++) {
-      const before = node.prev[l]!;
-      const after = node.next[l];
-      before.next[l] = after;
-      if (after !== null) after.prev[l] = before;
+  remove(entry: StatusNode<T>): void {
+    const node = entry as TreeNode<T>;
+    let from: TreeNode<T> | null;
+    if (node.left === null || node.right === null) {
+      const child = node.left ?? node.right;
+      from = node.parent;
+      this.replaceChild(node, child);
+      if (child !== null) child.parent = from;
+    } else {
+      // Two children: the next entry (leftmost of the right subtree, no left child) takes its place.
+      const next = node.after!;
+      if (next === node.right) from = next;
+      else {
+        from = next.parent!;
+        from.left = next.right;
+        if (next.right !== null) next.right.parent = from;
+        next.right = node.right;
+        node.right.parent = next;
+      }
+      next.left = node.left;
+      node.left.parent = next;
+      next.height = node.height;
+      next.parent = node.parent;
+      this.replaceChild(node, next);
     }
+    if (node.before === null) this.first = node.after;
+    else node.before.after = node.after;
+    if (node.after === null) this.last = node.before;
+    else node.after.before = node.before;
+    node.left = node.right = node.parent = node.before = node.after = null;
     this.count--;
+    this.rebalance(from);
   }
 
   /** The entry just before `node` (to its left), or null. */
   before(node: StatusNode<T>): StatusNode<T> | null {
-    const p = node.prev[0];
-    return p === this.head ? null : p;
+    return (node as TreeNode<T>).before;
   }
 
   /** The entry just after `node` (to its right), or null. */
   after(node: StatusNode<T>): StatusNode<T> | null {
-    return node.next[0];
+    return (node as TreeNode<T>).after;
   }
 
   /** All entries left to right (for tests and debugging). */
   items(): T[] {
     const out: T[] = [];
-    for (let n = this.head.next[0]; n !== null; n = n.next[0]) out.push(n.item);
+    for (let n = this.first; n !== null; n = n.after) out.push(n.item);
     return out;
+  }
+
+  /** Put `child` where `node` hangs from its parent (or at the root). */
+  private replaceChild(node: TreeNode<T>, child: TreeNode<T> | null): void {
+    const parent = node.parent;
+    if (parent === null) this.root = child;
+    else if (parent.left === node) parent.left = child;
+    else parent.right = child;
+  }
+
+  /** Rotate `x`'s left child up into its place; returns that child. */
+  private rotateRight(x: TreeNode<T>): TreeNode<T> {
+    const y = x.left!;
+    x.left = y.right;
+    if (y.right !== null) y.right.parent = x;
+    y.parent = x.parent;
+    this.replaceChild(x, y);
+    y.right = x;
+    x.parent = y;
+    x.height = Math.max(heightOf(x.left), heightOf(x.right)) + 1;
+    y.height = Math.max(heightOf(y.left), x.height) + 1;
+    return y;
+  }
+
+  /** Rotate `x`'s right child up into its place; returns that child. */
+  private rotateLeft(x: TreeNode<T>): TreeNode<T> {
+    const y = x.right!;
+    x.right = y.left;
+    if (y.left !== null) y.left.parent = x;
+    y.parent = x.parent;
+    this.replaceChild(x, y);
+    y.left = x;
+    x.parent = y;
+    x.height = Math.max(heightOf(x.left), heightOf(x.right)) + 1;
+    y.height = Math.max(x.height, heightOf(y.right)) + 1;
+    return y;
+  }
+
+  /**
+   * Restore the AVL balance from `x` up after an insert or removal below it: single or double
+   * rotations (Adelson-Velsky & Landis 1962), stopping where a subtree's height did not change.
+   */
+  private rebalance(x: TreeNode<T> | null): void {
+    while (x !== null) {
+      const old = x.height;
+      const hl = heightOf(x.left);
+      const hr = heightOf(x.right);
+      if (hl > hr + 1) {
+        const l = x.left!;
+        if (heightOf(l.left) < heightOf(l.right)) this.rotateLeft(l);
+        x = this.rotateRight(x);
+      } else if (hr > hl + 1) {
+        const r = x.right!;
+        if (heightOf(r.right) < heightOf(r.left)) this.rotateRight(r);
+        x = this.rotateLeft(x);
+      } else x.height = (hl > hr ? hl : hr) + 1;
+      if (x.height === old) return;
+      x = x.parent;
+    }
   }
 }
 
 /**
- * The same skip list for entries that are small integers (0 .. capacity - 1, each present at most
+ * The same AVL tree for entries that are small integers (0 .. capacity - 1, each present at most
  * once), with its links in typed arrays: no object per entry, so a sweep over many corners makes
  * no garbage, and reset() empties it for the next sweep without allocating unless it must grow.
- * Levels are promoted with probability 1/4 (Pugh 1990), which halves the link arrays. A search
- * starts from a finger, the entry the previous search or insertion ended at, when the wanted entry
- * lies at or right of it, and climbs only as high as the distance needs (Pugh 1990, "A skip list
- * cookbook": search with fingers): a sweep whose consecutive corners meet neighbouring walls left
- * to right (a comb's valleys, at one height) pays O(1) expected per search, and any search stays
- * O(log n) expected.
+ * A search first tries a finger, the entry the previous search or insertion ended at: when the
+ * wanted entry is the finger or the one right after it (consecutive corners meeting neighbouring
+ * walls left to right, as along a comb's valleys), it answers in O(1); otherwise it searches down
+ * from the root in O(log n) worst case. An entry that goes after every other (sweeps often add
+ * walls left to right) is placed with no search at all.
  */
 export class IndexSweepStatus {
-  // Node id = entry + 1; id 0 is the head, and a link 0 means "none" (the head is never a successor).
-  // Links of level l live at [l * stride, (l + 1) * stride) of one array each way.
-  private next = new Int32Array(0);
-  private prev = new Int32Array(0);
+  // Node id = entry + 1; id 0 means "none" in the tree links, and heads the circular list of
+  // neighbours: after[0] is the leftmost entry, before[0] the rightmost.
+  private left = new Int32Array(0);
+  private right = new Int32Array(0);
+  private parent = new Int32Array(0);
+  private before = new Int32Array(0);
+  private after = new Int32Array(0);
+  /** Height of each node's subtree (1 for a leaf); 0: not in the status (and for id 0). */
   private heights = new Uint8Array(0);
-  private stride = 0;
-  /** Levels the link arrays have room for. */
-  private levels = 0;
-  /** log4(capacity) + 2 levels: enough for O(log n) searches at promotion 1/4 (Pugh 1990). */
-  private maxHeight = 0;
   private capacity = 0;
-  private readonly update = new Int32Array(MAX_LEVEL);
-  /** The last node on each level (0: none): entries that go to the right end need no search. */
-  private readonly tails = new Int32Array(MAX_LEVEL);
-  private level = 0;
-  private seed = 1;
+  private root = 0;
   private count = 0;
-  /** The node the last search or insertion ended at (0: the head): where the next search starts. */
+  /** The node the last search or insertion ended at (0: none): tried first by the next search. */
   private finger = 0;
 
-  constructor(
-    capacity: number,
-    private readonly firstSeed = 0x9e3779b9,
-  ) {
+  constructor(capacity: number) {
     this.reset(capacity);
   }
 
   /** Empty the status for entries 0 .. capacity - 1, keeping its arrays when they are big enough. */
   reset(capacity: number): void {
-    const maxHeight = Math.min(16, Math.ceil(Math.log2(capacity + 1) / 2) + 2);
-    if (capacity + 1 > this.stride || maxHeight > this.levels) {
-      this.stride = Math.max(capacity + 1, this.stride);
-      this.levels = Math.max(maxHeight, this.levels);
-      this.next = new Int32Array(this.stride * this.levels);
-      this.prev = new Int32Array(this.stride * this.levels);
-      this.heights = new Uint8Array(this.stride);
+    if (capacity + 1 > this.heights.length) {
+      const size = capacity + 1;
+      this.left = new Int32Array(size);
+      this.right = new Int32Array(size);
+      this.parent = new Int32Array(size);
+      this.before = new Int32Array(size);
+      this.after = new Int32Array(size);
+      this.heights = new Uint8Array(size);
     } else {
-      // Entries a sweep that stopped early (an error) left behind, and the head's links.
+      // Entries a sweep that stopped early (an error) left behind.
       this.heights.fill(0, 0, this.capacity + 1);
-      for (let l = 0; l < this.levels; l++) this.next[l * this.stride] = 0;
     }
+    this.before[0] = 0;
+    this.after[0] = 0;
     this.capacity = capacity;
-    this.maxHeight = maxHeight;
-    this.tails.fill(0);
-    this.level = 0;
+    this.root = 0;
     this.count = 0;
     this.finger = 0;
-    this.seed = this.firstSeed >>> 0 || 1;
   }
 
   get size(): number {
     return this.count;
   }
 
-  /** Random height: 1, plus one more level with probability 1/4 each (xorshift32). */
-  private randomHeight(): number {
-    let x = this.seed;
-    x ^= x << 13;
-    x ^= x >>> 17;
-    x ^= x << 5;
-    this.seed = x >>> 0;
-    let height = 1;
-    for (let bits = this.seed; (bits & 3) === 0 && height < this.maxHeight; bits >>>= 2) height++;
-    return height;
+  /** Height of the tree (0 when empty): for tests of the AVL bound. */
+  get height(): number {
+    return this.heights[this.root];
   }
 
   /**
-   * The last node for which `isBefore` holds (0: the head, none holds). When the finger still
-   * holds, the search climbs from it while the next node on its top level holds too, then goes
-   * down the levels as in Pugh's search; otherwise it searches from the head. (Searching backward
-   * from the finger as well made random rooms, whose consecutive corners are far apart, slower.)
+   * The last node for which `isBefore` holds (0: none holds). O(1) when the finger or the node
+   * after it is the answer, else a search down from the root: O(log n) worst case either way.
    */
   private lastNode<Q>(isBefore: (entry: number, probe: Q) => boolean, probe: Q): number {
-    const next = this.next;
-    const heights = this.heights;
-    const stride = this.stride;
+    const after = this.after;
     let x = this.finger;
-    let l: number;
     if (x !== 0 && isBefore(x - 1, probe)) {
-      l = heights[x] - 1;
-      for (let n = next[l * stride + x]; n !== 0 && isBefore(n - 1, probe); n = next[l * stride + x]) {
-        x = n;
-        l = heights[x] - 1;
-      }
-      l--; // the next node on level l does not hold: the answer is below
-    } else {
-      x = 0;
-      l = this.level - 1;
+      let n = after[x];
+      if (n === 0 || !isBefore(n - 1, probe)) return x;
+      x = n;
+      n = after[x];
+      if (n === 0 || !isBefore(n - 1, probe)) return x;
     }
-    for (; l >= 0; l--) {
-      const base = l * stride;
-      for (let n = next[base + x]; n !== 0 && isBefore(n - 1, probe); n = next[base + x]) x = n;
+    const left = this.left;
+    const right = this.right;
+    let found = 0;
+    for (x = this.root; x !== 0; ) {
+      if (isBefore(x - 1, probe)) {
+        found = x;
+        x = right[x];
+      } else x = left[x];
     }
-    return x;
+    return found;
   }
 
   /** The last entry for which `isBefore` holds (monotone along the status), or -1 when none. */
@@ -235,93 +303,190 @@ export class IndexSweepStatus {
   insert<Q>(entry: number, isBefore: (other: number, probe: Q) => boolean, probe: Q): void {
     if (!(entry >= 0 && entry < this.capacity)) throw new RangeError(`sweep status: entry ${entry} outside 0..${this.capacity - 1}`);
     const id = entry + 1;
-    if (this.heights[id] !== 0) throw new RangeError(`sweep status: entry ${entry} is already in the status`);
-    const update = this.update;
-    const next = this.next;
-    const prev = this.prev;
     const heights = this.heights;
-    const stride = this.stride;
-    const height = this.randomHeight();
-    const known = Math.min(height, this.level);
-    const last = this.tails[0];
-    if (last !== 0 && isBefore(last - 1, probe)) {
-      // After every entry (sweeps often add walls left to right): the tails are the predecessors.
-      for (let l = 0; l < known; l++) update[l] = this.tails[l];
+    if (heights[id] !== 0) throw new RangeError(`sweep status: entry ${entry} is already in the status`);
+    const before = this.before;
+    const after = this.after;
+    const last = before[0];
+    // The node it goes after (0: first of all): with no search when it goes after every entry.
+    const previous = last !== 0 && isBefore(last - 1, probe) ? last : this.count === 0 ? 0 : this.lastNode(isBefore, probe);
+    const following = after[previous];
+    this.left[id] = 0;
+    this.right[id] = 0;
+    heights[id] = 1;
+    // In-order between previous and following: under previous's right when it is free, else
+    // under following's left (following is then the leftmost of previous's right subtree).
+    let parent: number;
+    if (previous !== 0 && this.right[previous] === 0) {
+      parent = previous;
+      this.right[parent] = id;
+    } else if (following !== 0) {
+      parent = following;
+      this.left[parent] = id;
     } else {
-      // The predecessor on level 0, then on each higher level the nearest node back that reaches it.
-      let x = this.count === 0 ? 0 : this.lastNode(isBefore, probe);
-      for (let l = 0; l < known; l++) {
-        while (x !== 0 && heights[x] <= l) x = prev[(l - 1) * stride + x];
-        update[l] = x;
-      }
+      parent = 0;
+      this.root = id;
     }
-    while (this.level < height) update[this.level++] = 0;
-    heights[id] = height;
-    for (let l = 0; l < height; l++) {
-      const base = l * stride;
-      const after = update[l];
-      const following = next[base + after];
-      next[base + id] = following;
-      prev[base + id] = after;
-      next[base + after] = id;
-      if (following !== 0) prev[base + following] = id;
-      else this.tails[l] = id;
-    }
+    this.parent[id] = parent;
+    before[id] = previous;
+    after[id] = following;
+    after[previous] = id;
+    before[following] = id;
     this.finger = id;
     this.count++;
+    this.rebalance(parent);
   }
 
   /** Remove an entry that is in the status. */
   remove(entry: number): void {
     const id = entry + 1;
-    const height = entry >= 0 && entry < this.capacity ? this.heights[id] : 0;
-    if (height === 0) throw new RangeError(`sweep status: entry ${entry} is not in the status`);
-    const next = this.next;
-    const prev = this.prev;
-    if (this.finger === id) this.finger = prev[id];
-    for (let l = 0, base = 0; l < height; l++, base += this.stride) {
-      const before = prev[base + id];
-      const after = next[base + id];
-      next[base + before] = after;
-      if (after !== 0) prev[base + after] = before;
-      else this.tails[l] = before;
+    if (!(entry >= 0 && entry < this.capacity) || this.heights[id] === 0) {
+      throw new RangeError(`sweep status: entry ${entry} is not in the status`);
     }
+    const left = this.left;
+    const right = this.right;
+    const parent = this.parent;
+    const before = this.before;
+    const after = this.after;
+    let from: number;
+    const l = left[id];
+    const r = right[id];
+    if (l === 0 || r === 0) {
+      const child = l !== 0 ? l : r;
+      from = parent[id];
+      this.replaceChild(id, child);
+      if (child !== 0) parent[child] = from;
+    } else {
+      // Two children: the next entry (leftmost of the right subtree, no left child) takes its place.
+      const next = after[id];
+      if (next === r) from = next;
+      else {
+        from = parent[next];
+        const nr = right[next];
+        left[from] = nr;
+        if (nr !== 0) parent[nr] = from;
+        right[next] = r;
+        parent[r] = next;
+      }
+      left[next] = l;
+      parent[l] = next;
+      this.heights[next] = this.heights[id];
+      parent[next] = parent[id];
+      this.replaceChild(id, next);
+    }
+    const b = before[id];
+    const a = after[id];
+    after[b] = a;
+    before[a] = b;
+    if (this.finger === id) this.finger = b;
     this.heights[id] = 0;
     this.count--;
+    this.rebalance(from);
   }
 
   /**
-   * Put `entry` in the place of `old`, which leaves the status, in O(height) with no search: for a
-   * wall that ends where the next wall of its ring begins, so nothing lies between the two.
+   * Put `entry` in the place of `old`, which leaves the status, in O(1) with no search: for a wall
+   * that ends where the next wall of its ring begins, so nothing lies between the two.
    */
   replace(old: number, entry: number): void {
     const from = old + 1;
     const id = entry + 1;
-    const height = old >= 0 && old < this.capacity ? this.heights[from] : 0;
-    if (height === 0) throw new RangeError(`sweep status: entry ${old} is not in the status`);
+    const heights = this.heights;
+    if (!(old >= 0 && old < this.capacity) || heights[from] === 0) throw new RangeError(`sweep status: entry ${old} is not in the status`);
     if (!(entry >= 0 && entry < this.capacity)) throw new RangeError(`sweep status: entry ${entry} outside 0..${this.capacity - 1}`);
-    if (this.heights[id] !== 0) throw new RangeError(`sweep status: entry ${entry} is already in the status`);
-    const next = this.next;
-    const prev = this.prev;
-    for (let l = 0, base = 0; l < height; l++, base += this.stride) {
-      const before = prev[base + from];
-      const after = next[base + from];
-      next[base + id] = after;
-      prev[base + id] = before;
-      next[base + before] = id;
-      if (after !== 0) prev[base + after] = id;
-      else this.tails[l] = id;
-    }
-    this.heights[id] = height;
-    this.heights[from] = 0;
+    if (heights[id] !== 0) throw new RangeError(`sweep status: entry ${entry} is already in the status`);
+    const left = this.left;
+    const right = this.right;
+    const parent = this.parent;
+    const l = left[from];
+    const r = right[from];
+    left[id] = l;
+    right[id] = r;
+    parent[l] = id;
+    parent[r] = id;
+    parent[id] = parent[from];
+    this.replaceChild(from, id);
+    const b = this.before[from];
+    const a = this.after[from];
+    this.before[id] = b;
+    this.after[id] = a;
+    this.after[b] = id;
+    this.before[a] = id;
+    heights[id] = heights[from];
+    heights[from] = 0;
     if (this.finger === from) this.finger = id;
   }
 
   /** All entries left to right (for tests and debugging). */
   items(): number[] {
     const out: number[] = [];
-    if (this.level === 0) return out;
-    for (let n = this.next[0]; n !== 0; n = this.next[n]) out.push(n - 1);
+    for (let n = this.after[0]; n !== 0; n = this.after[n]) out.push(n - 1);
     return out;
+  }
+
+  /** Put `child` where node `x` hangs from its parent (or at the root). */
+  private replaceChild(x: number, child: number): void {
+    const p = this.parent[x];
+    if (p === 0) this.root = child;
+    else if (this.left[p] === x) this.left[p] = child;
+    else this.right[p] = child;
+  }
+
+  /** Rotate node x's left child (right child when `toLeft`) up into its place; returns that child. */
+  private rotate(x: number, toLeft: boolean): number {
+    const left = this.left;
+    const right = this.right;
+    const parent = this.parent;
+    const heights = this.heights;
+    let y: number;
+    if (toLeft) {
+      y = right[x];
+      const inner = left[y];
+      right[x] = inner;
+      parent[inner] = x;
+      left[y] = x;
+    } else {
+      y = left[x];
+      const inner = right[y];
+      left[x] = inner;
+      parent[inner] = x;
+      right[y] = x;
+    }
+    parent[y] = parent[x];
+    this.replaceChild(x, y);
+    parent[x] = y;
+    const hl = heights[left[x]];
+    const hr = heights[right[x]];
+    const hx = (hl > hr ? hl : hr) + 1;
+    heights[x] = hx;
+    const other = heights[toLeft ? right[y] : left[y]];
+    heights[y] = (hx > other ? hx : other) + 1;
+    return y;
+  }
+
+  /**
+   * Restore the AVL balance from node x up after an insert or removal below it: single or double
+   * rotations (Adelson-Velsky & Landis 1962), stopping where a subtree's height did not change.
+   */
+  private rebalance(x: number): void {
+    const left = this.left;
+    const right = this.right;
+    const heights = this.heights;
+    while (x !== 0) {
+      const old = heights[x];
+      const hl = heights[left[x]];
+      const hr = heights[right[x]];
+      if (hl > hr + 1) {
+        const l = left[x];
+        if (heights[left[l]] < heights[right[l]]) this.rotate(l, true);
+        x = this.rotate(x, false);
+      } else if (hr > hl + 1) {
+        const r = right[x];
+        if (heights[right[r]] < heights[left[r]]) this.rotate(r, false);
+        x = this.rotate(x, true);
+      } else heights[x] = (hl > hr ? hl : hr) + 1;
+      if (heights[x] === old) return;
+      x = this.parent[x];
+    }
   }
 }

@@ -1,7 +1,7 @@
 // Triangulation of a room with obstacles over its own vertices, O(n log n) worst case:
 // 1. a top-down plane sweep splits the floor into y-monotone pieces (Lee & Preparata 1977; Garey,
 //    Johnson, Preparata & Tarjan 1978), classifying corners as start, end, split, merge or regular
-//    and keeping the walls that cross the sweep line in an ordered skip list; obstacles are just
+//    and keeping the walls that cross the sweep line in an AVL tree (sweep-status.ts); obstacles are just
 //    more walls to the same sweep;
 // 2. each piece is triangulated in linear time with a stack (Garey et al. 1978).
 // Ties in y are broken by x (isAbove), every sign comes from exact predicates, and collinear

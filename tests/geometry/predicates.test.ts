@@ -1,7 +1,7 @@
 // Exact predicates (lib/geometry/predicates.ts) and the sweep status (lib/geometry/sweep-status.ts).
 // Reference: exact rational arithmetic with BigInt (every double is a dyadic rational), the ground
 // truth that Shewchuk's adaptive predicates (1997; npm robust-predicates) promise to reproduce; the
-// skip list is compared with a sorted array.
+// sweep status (an AVL tree) is compared with a sorted array.
 import { describe, expect, it } from "vitest";
 import fc from "fast-check";
 import { orient, orientSign, segmentsMeet, isAbove, compareTopDown } from "@/lib/geometry/predicates";
@@ -61,7 +61,7 @@ describe("orient", () => {
   });
 });
 
-describe("SweepStatus (skip list)", () => {
+describe("SweepStatus (AVL tree)", () => {
   it("keeps order, neighbours and removals like a sorted array", () => {
     fc.assert(
       fc.property(fc.array(fc.tuple(fc.boolean(), fc.integer({ min: 0, max: 200 })), { maxLength: 300 }), (operations) => {
@@ -94,7 +94,7 @@ describe("SweepStatus (skip list)", () => {
   });
 });
 
-describe("IndexSweepStatus (skip list over typed arrays)", () => {
+describe("IndexSweepStatus (AVL tree over typed arrays)", () => {
   it("keeps order and removals like a sorted array (the model: a plain sorted array)", () => {
     fc.assert(
       fc.property(fc.array(fc.tuple(fc.boolean(), fc.integer({ min: 0, max: 200 })), { maxLength: 300 }), (operations) => {

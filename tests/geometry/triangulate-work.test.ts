@@ -2,7 +2,7 @@
 // - the sweep order (lib/geometry/sweep-order.ts: merge sort, radix sort, runs of equal y) against
 //   JavaScript's own Array sort with the order the issue fixes for the sweep: y descending, ties
 //   in y broken by x (the lexicographic tie-break of Lee & Preparata 1977, as the issue states);
-// - the reusable skip list (IndexSweepStatus: reset, finger searches) against a plain sorted array;
+// - the reusable sweep status (IndexSweepStatus, an AVL tree: reset, finger searches) against a plain sorted array;
 // - triangulations made with reused work arrays (after bigger rooms and after calls that failed
 //   half-way) against the independent oracle in ./support/oracle.ts (n + 2h - 2 strictly positive
 //   triangles pairing up edge for edge and summing to the floor's area: the textbook count,
