@@ -17,19 +17,16 @@ import { clipToSightRange, discCorners } from "../geometry/visibility-range";
 import { certifyCoverage, pointInside, ringArea, roomRegion, type CoverageCertificate, type Region } from "../geometry/coverage";
 import { createWitnessCells } from "./lower-bound-arrangement";
 import { allowedPost, checkConstraints, type ConstraintProblem, type PostConstraints } from "./constraints";
-import type { LowerBound } from "./lower-bound";
 import { solveCover } from "./fewest-reduce";
 
 export interface FewestOptions extends PostConstraints {
   /** Seconds to spend on the room (default 10); the best certified plan so far is returned. */
   timeLimit?: number;
-  /** Called with a line per step of the search (for profiling; the plan does not depend on it). */
-  onStep?: (message: string) => void;
 }
 
 export interface FewestPlan {
   posts: Point[];
-  /** No plan meeting the constraints has fewer posts (witness cells or independent witnesses; see lower-bound*.ts). */
+  /** No plan meeting the constraints has fewer posts (witness cells; see lower-bound-arrangement.ts). */
   lowerBound: number;
   /** lowerBound equals the number of posts and the certificate says the room is covered. */
   proven: boolean;
@@ -39,12 +36,6 @@ export interface FewestPlan {
   uncovered: Ring[][];
   /** Witnesses that prove the lower bound. */
   boundWitnesses: Point[];
-  /**
-   * Which proof: "witness cells" (the fewest posts that can see the witnesses, over their regions'
-   * overlay; lower-bound-arrangement.ts), which the planner now always uses; "independent
-   * witnesses" (pairwise disjoint regions, lower-bound.ts) is kept for plans stored before.
-   */
-  boundMethod: "independent witnesses" | "witness cells";
   witnesses: number;
   rounds: number;
   /** Why the search stopped: the bound was met, time ran out, or the witnesses were all seen. */
@@ -156,7 +147,6 @@ export function planFewestOver(
   // The search for posts stops at 75% of the time limit so the lower bound always gets its turn.
   const searchDeadline = started + 750 * (options.timeLimit ?? 10);
   const searchSecondsLeft = () => Math.max(0, (searchDeadline - performance.now()) / 1000);
-  const T = (message: string) => options.onStep?.(`${Math.round(performance.now() - started)} ms: ${message}`);
   const sightlines: Sightlines = createSightlines(room, triangulation);
   const problems = checkConstraints(room, sightlines, options);
   const range = options.sightRange && options.sightRange > 0 ? options.sightRange : undefined;
@@ -248,7 +238,6 @@ export function planFewestOver(
   for (const p of wallMidpoints(room)) addWitness(p);
   for (const w of [...witnesses]) addCandidate(w.point);
 
-  T(`setup W=${witnesses.length} C=${candidates.length}`);
   // The starting plan (the guaranteed plan when it obeys the constraints) is the first upper bound.
   let best: { posts: Point[]; certificate: CoverageCertificate } | null = null;
   const starting = [...pinned, ...(options.startingPlan ?? []).filter((p) => allowedPost(p, options))];
@@ -258,9 +247,8 @@ export function planFewestOver(
   }
   let lastTry: { posts: Point[]; certificate: CoverageCertificate } | null = best;
 
-  // The best lower bound so far and which proof gave it.
-  let proof: LowerBound = { bound: pinned.length, witnesses: [] };
-  let boundMethod: FewestPlan["boundMethod"] = "witness cells";
+  // The best lower bound so far, and the witnesses whose cells prove it.
+  let proof: { bound: number; witnesses: Point[] } = { bound: pinned.length, witnesses: [] };
   let rounds = 0;
   let stoppedBy: FewestPlan["stoppedBy"] = "time-limit";
   const pinnedIndex = pinned.map((p) => candidateKeys.get(key(p))!).filter((i) => i !== undefined);
@@ -268,7 +256,6 @@ export function planFewestOver(
   function coverRounds(maxRounds: number, timeLeft = searchSecondsLeft) {
     for (let round = 0; round < maxRounds && timeLeft() > 0; round++) {
       rounds++;
-      const ipStart = performance.now();
       const answer = solveCover({
         columns: candidates.length,
         rows: seenBy.map((items) => ({ items, need: Math.min(demand, items.length) })),
@@ -278,7 +265,6 @@ export function planFewestOver(
         seconds: timeLeft(),
         nodes: WORK_LIMITS.solverNodes,
       });
-      T(`cover round ${rounds}: W=${witnesses.length} C=${candidates.length} -> ${answer.chosen.length} ${answer.status} ip ${answer.size.rows}x${answer.size.columns} in ${Math.round(performance.now() - ipStart)} ms`);
       if (answer.status === "infeasible") {
         // No plan over these candidates beats the best certified one.
         if (best) stoppedBy = "covered";
@@ -311,9 +297,8 @@ export function planFewestOver(
   }
 
   coverRounds(WORK_LIMITS.firstRounds);
-  T(`first rounds done best=${best?.posts.length}`);
   // The bound: witness cells (lower-bound-arrangement.ts), which subsume any packing of the same
-  // witnesses (lower-bound.ts, independent witnesses, is no longer needed here).
+  // witnesses.
   const planSize = () => best?.posts.length ?? Infinity; // no limit while no plan is certified
   // Tozoni et al.'s loop over one overlay that grows with the witnesses it needs (row generation):
   // the bound over a subset S of the witnesses is a proof by itself, since every witness set gives
@@ -360,16 +345,16 @@ export function planFewestOver(
     const dual = overlay.solve({ seconds: secondsLeft() + 0.5, nodes: WORK_LIMITS.solverNodes, demand });
     // How many of the bound's posts see a witness (a cell chosen twice counts twice).
     const watching = (w: (typeof witnesses)[number]) => dual.posts.reduce((n, p) => n + (sees(w, p) ? 1 : 0), 0);
-    T(`cells round ${round}: S ${inOverlay.length}/${witnesses.length} (added ${count}/${waiting.length}), bound ${dual.bound}, plan ${planSize()}`);
     if (pinned.length + dual.bound > proof.bound) {
       proof = { bound: pinned.length + dual.bound, witnesses: [...inOverlay] };
-      boundMethod = "witness cells";
     }
     if (proof.bound >= planSize() || dual.posts.length === 0 || !complete) break;
     // Row generation: the witnesses the bound's posts miss.
     const missed = witnesses.flatMap((w, i) => (!inS.has(key(w.point)) && unseenByPinned(i) && watching(w) < demand ? [i] : []));
     if (missed.length > 0) {
-      waiting = missed.sort((a, b) => Math.abs(ringArea(witnesses[a].ring)) - Math.abs(ringArea(witnesses[b].ring)) || a - b);
+      // Smallest regions first; each area computed once, not in every comparison.
+      const area = new Map(missed.map((i) => [i, Math.abs(ringArea(witnesses[i].ring))]));
+      waiting = missed.sort((a, b) => area.get(a)! - area.get(b)! || a - b);
       continue;
     }
     // The posts see every witness: certify them against the whole room.
@@ -427,7 +412,6 @@ export function planFewestOver(
     covered: certificate.covered,
     uncovered: certificate.uncovered,
     boundWitnesses: proof.witnesses,
-    boundMethod,
     witnesses: witnesses.length,
     rounds,
     stoppedBy: proven ? "proven" : stoppedBy,

@@ -210,10 +210,7 @@ export function reduceCover(columnCount: number, rows: CoverRow[], fixed: number
   return { infeasible, forced, rows: reducedRows, columns };
 }
 
-/**
- * The fewest columns meeting every row (unit weights), reduced first and the rest solved by HiGHS.
- * `size` reports the program HiGHS saw.
- */
+/** The fewest columns meeting every row (unit weights), reduced first and the rest solved by HiGHS. */
 export function solveCover(problem: {
   columns: number;
   rows: CoverRow[];
@@ -226,34 +223,32 @@ export function solveCover(problem: {
   atMostColumns?: number;
   seconds: number;
   nodes?: number;
-}): BinaryAnswer & { size: { rows: number; columns: number } } {
+}): BinaryAnswer {
   const reduced = reduceCover(problem.columns, problem.rows, problem.fixed);
-  if (reduced.infeasible) return { status: "infeasible", chosen: [], size: { rows: 0, columns: 0 } };
-  const size = { rows: reduced.rows.length, columns: reduced.columns.length };
+  if (reduced.infeasible) return { status: "infeasible", chosen: [] };
   const room = problem.atMostColumns === undefined ? Infinity : problem.atMostColumns - reduced.forced.length;
-  if (room < 0 || (room === 0 && reduced.rows.length > 0)) return { status: "infeasible", chosen: [], size };
-  if (reduced.rows.length === 0) return { status: "optimal", chosen: [...reduced.forced].sort((a, b) => a - b), size };
+  if (room < 0 || (room === 0 && reduced.rows.length > 0)) return { status: "infeasible", chosen: [] };
+  if (reduced.rows.length === 0) return { status: "optimal", chosen: [...reduced.forced].sort((a, b) => a - b) };
   // Small single covers: an exact search in JavaScript first (HiGHS costs more to start than such
   // a search takes); when its node budget runs out, HiGHS decides.
   if (reduced.rows.every((r) => r.need === 1)) {
     const found = searchCover(reduced.columns.length, reduced.rows.map((r) => r.items), room, SEARCH_NODES);
-    if (found === "infeasible") return { status: "infeasible", chosen: [], size };
+    if (found === "infeasible") return { status: "infeasible", chosen: [] };
     if (found) {
       const chosen = [...reduced.forced, ...found.map((j) => reduced.columns[j])].sort((a, b) => a - b);
-      return { status: "optimal", chosen, size };
+      return { status: "optimal", chosen };
     }
   }
   const answer = solveBinaryProgram({
-    sense: "minimise",
     weights: reduced.columns.map(() => 1),
     atLeast: reduced.rows,
     atMost: room < reduced.columns.length ? [{ items: reduced.columns.map((_, j) => j), most: room }] : [],
     seconds: problem.seconds,
     nodes: problem.nodes,
   });
-  if (answer.status === "infeasible") return { ...answer, size };
+  if (answer.status === "infeasible") return { ...answer };
   const chosen = [...reduced.forced, ...answer.chosen.map((j) => reduced.columns[j])].sort((a, b) => a - b);
-  return { status: answer.status, chosen, size };
+  return { status: answer.status, chosen };
 }
 
 /** Nodes the exact search may visit before HiGHS takes over (a count, so the same on any machine). */

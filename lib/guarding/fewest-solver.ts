@@ -29,17 +29,13 @@ export interface BinaryAnswer {
 }
 
 /**
- * Minimise or maximise the weighted count of chosen items under constraints written as lists of
- * item indices: `sum(items) >= need` (cover) or `sum(items) <= 1` (packing). `fixed` items are 1.
+ * Minimise the weighted count of chosen items under constraints written as lists of item indices:
+ * `sum(items) >= need` (cover) and `sum(items) <= most` (a cut-off).
  */
 export function solveBinaryProgram(problem: {
-  sense: "minimise" | "maximise";
   weights: number[];
   atLeast?: { items: number[]; need: number }[];
-  atMostOne?: number[][];
-  /** `sum(items) <= most`. */
   atMost?: { items: number[]; most: number }[];
-  fixed?: number[];
   /** Wall-clock safety net; `nodes` is the deterministic limit that normally ends a hard search. */
   seconds: number;
   /** Branch-and-bound nodes HiGHS may explore (mip_max_nodes): the same answer on any machine. */
@@ -47,7 +43,7 @@ export function solveBinaryProgram(problem: {
 }): BinaryAnswer {
   const n = problem.weights.length;
   if (n === 0) return { status: "optimal", chosen: [] };
-  const lines: string[] = [problem.sense === "minimise" ? "Minimize" : "Maximize"];
+  const lines: string[] = ["Minimize"];
   lines.push(" obj: " + problem.weights.map((w, i) => `${w} x${i}`).join(" + "));
   lines.push("Subject To");
   let row = 0;
@@ -55,14 +51,8 @@ export function solveBinaryProgram(problem: {
     if (items.length === 0) continue;
     lines.push(` c${row++}: ${items.map((i) => `x${i}`).join(" + ")} >= ${need}`);
   }
-  for (const items of problem.atMostOne ?? []) lines.push(` c${row++}: ${items.map((i) => `x${i}`).join(" + ")} <= 1`);
   for (const { items, most } of problem.atMost ?? []) lines.push(` c${row++}: ${items.map((i) => `x${i}`).join(" + ")} <= ${most}`);
   if (row === 0) lines.push(" c0: x0 >= 0");
-  const fixed = new Set(problem.fixed ?? []);
-  if (fixed.size) {
-    lines.push("Bounds");
-    for (const i of fixed) lines.push(` x${i} = 1`);
-  }
   lines.push("Binary");
   for (let i = 0; i < n; i += 20) lines.push(" " + Array.from({ length: Math.min(20, n - i) }, (_, k) => `x${i + k}`).join(" "));
   lines.push("End");

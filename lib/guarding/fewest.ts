@@ -1,5 +1,5 @@
 // The fewest plan for a room: the public entry point (see fewest-core.ts for the method and
-// lower-bound-arrangement.ts and lower-bound.ts for the proofs of how few posts suffice).
+// lower-bound-arrangement.ts for the proof of how few posts suffice).
 import type { Point, Room, Triangulation } from "../geometry/types";
 import { triangulate } from "../geometry/triangulate";
 import { planGuaranteed } from "./guaranteed";
@@ -29,9 +29,7 @@ export function fewestReport(plan: FewestPlan) {
     covered: plan.covered,
     uncovered: plan.uncovered.map((polygon) => polygon[0]),
     lowerBoundProof:
-      plan.boundMethod === "witness cells"
-        ? "witness cells: no set of fewer points sees all bound witnesses (overlay of their visibility regions, exact integer program)"
-        : "independent witnesses: pairwise disjoint visibility regions",
+      "witness cells: no set of fewer points sees all bound witnesses (overlay of their visibility regions, exact integer program)",
     boundWitnesses: plan.boundWitnesses,
     stoppedBy: plan.stoppedBy,
     ...(plan.problems.length ? { problems: plan.problems } : {}),

@@ -51,7 +51,7 @@ export default async function (): Promise<string> {
     }
     if (n <= 60) small.push(ms);
     rows.push(
-      `| ${file.replace(".geojson", "")} | ${n} | ${room.obstacles.length} | ${guaranteed.length} | ${plan.posts.length} | ${plan.lowerBound} (${plan.boundMethod === "witness cells" ? "cells" : "packing"}) | ${plan.proven ? "yes" : "no"} | ${plan.covered === 1 ? "1" : plan.covered.toFixed(6)} | ${isOrthogonal ? (plan.posts.length <= Math.floor(n / 4) ? `yes (${Math.floor(n / 4)})` : "NO") : "-"} | ${Math.round(ms)} |`,
+      `| ${file.replace(".geojson", "")} | ${n} | ${room.obstacles.length} | ${guaranteed.length} | ${plan.posts.length} | ${plan.lowerBound} (cells) | ${plan.proven ? "yes" : "no"} | ${plan.covered === 1 ? "1" : plan.covered.toFixed(6)} | ${isOrthogonal ? (plan.posts.length <= Math.floor(n / 4) ? `yes (${Math.floor(n / 4)})` : "NO") : "-"} | ${Math.round(ms)} |`,
     );
   }
   const slowest = rows.length ? Math.max(...times) : NaN;

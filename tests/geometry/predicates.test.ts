@@ -1,11 +1,9 @@
-// Exact predicates (lib/geometry/predicates.ts) and the sweep status (lib/geometry/sweep-status.ts).
+// Exact predicates (lib/geometry/predicates.ts); the sweep status has its own tests (sweep-status.test.ts).
 // Reference: exact rational arithmetic with BigInt (every double is a dyadic rational), the ground
-// truth that Shewchuk's adaptive predicates (1997; npm robust-predicates) promise to reproduce; the
-// sweep status (an AVL tree) is compared with a sorted array.
+// truth that Shewchuk's adaptive predicates (1997; npm robust-predicates) promise to reproduce.
 import { describe, expect, it } from "vitest";
 import fc from "fast-check";
 import { orient, orientSign, segmentsMeet, isAbove, compareTopDown } from "@/lib/geometry/predicates";
-import { IndexSweepStatus, SweepStatus } from "@/lib/geometry/sweep-status";
 import type { Point } from "@/lib/geometry/types";
 
 const SCALE = 2n ** 80n;
@@ -58,77 +56,5 @@ describe("orient", () => {
     expect(isAbove([1, 0], [0, 0])).toBe(false);
     const sorted = ([[2, 0], [0, 0], [1, 5], [0, 5]] as Point[]).sort(compareTopDown);
     expect(sorted).toEqual([[0, 5], [1, 5], [0, 0], [2, 0]]);
-  });
-});
-
-describe("SweepStatus (AVL tree)", () => {
-  it("keeps order, neighbours and removals like a sorted array", () => {
-    fc.assert(
-      fc.property(fc.array(fc.tuple(fc.boolean(), fc.integer({ min: 0, max: 200 })), { maxLength: 300 }), (operations) => {
-        const status = new SweepStatus<number>();
-        const model: number[] = [];
-        const nodes = new Map<number, ReturnType<typeof status.insert>>();
-        for (const [add, value] of operations) {
-          if (add && !nodes.has(value)) {
-            nodes.set(value, status.insert(value, (other) => other < value));
-            model.push(value);
-            model.sort((a, b) => a - b);
-          } else if (!add && nodes.has(value)) {
-            const node = nodes.get(value)!;
-            const i = model.indexOf(value);
-            expect(status.before(node)?.item ?? null).toBe(i > 0 ? model[i - 1] : null);
-            expect(status.after(node)?.item ?? null).toBe(i + 1 < model.length ? model[i + 1] : null);
-            status.remove(node);
-            nodes.delete(value);
-            model.splice(i, 1);
-          }
-          expect(status.items()).toEqual(model);
-          expect(status.size).toBe(model.length);
-          const probe = value + 0.5;
-          const below = model.filter((v) => v < probe);
-          expect(status.lastWhere((v) => v < probe)?.item ?? null).toBe(below.length ? below[below.length - 1] : null);
-        }
-      }),
-      { numRuns: 200, seed: 2 },
-    );
-  });
-});
-
-describe("IndexSweepStatus (AVL tree over typed arrays)", () => {
-  it("keeps order and removals like a sorted array (the model: a plain sorted array)", () => {
-    fc.assert(
-      fc.property(fc.array(fc.tuple(fc.boolean(), fc.integer({ min: 0, max: 200 })), { maxLength: 300 }), (operations) => {
-        const status = new IndexSweepStatus(402);
-        const model: number[] = [];
-        for (const [add, value] of operations) {
-          if (add && !model.includes(value)) {
-            status.insert(value, (other, probe) => other < probe, value);
-            model.push(value);
-            model.sort((a, b) => a - b);
-          } else if (!add && model.includes(value)) {
-            // Half the removals replace the entry in place by a fresh one (value + 201) and remove that.
-            if (value % 2 === 0) {
-              status.replace(value, value + 201);
-              const inPlace = model.map((v) => (v === value ? value + 201 : v));
-              expect(status.items()).toEqual(inPlace);
-              status.remove(value + 201);
-            } else status.remove(value);
-            model.splice(model.indexOf(value), 1);
-          }
-          expect(status.items()).toEqual(model);
-          expect(status.size).toBe(model.length);
-          const probe = value + 0.5;
-          const below = model.filter((v) => v < probe);
-          expect(status.lastWhere((v, p) => v < p, probe)).toBe(below.length ? below[below.length - 1] : -1);
-        }
-      }),
-      { numRuns: 200, seed: 3 },
-    );
-  });
-
-  it("refuses entries outside its capacity and removal of absent entries", () => {
-    const status = new IndexSweepStatus(4);
-    expect(() => status.insert(4, () => false, 0)).toThrow(RangeError);
-    expect(() => status.remove(2)).toThrow(RangeError);
   });
 });

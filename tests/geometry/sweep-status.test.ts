@@ -52,6 +52,7 @@ describe("SweepStatus (AVL tree of objects) against a sorted array", () => {
             nodes.delete(value);
             model.splice(i, 1);
           }
+          expect(status.items()).toEqual(model);
           expect(status.size).toBe(model.length);
           expect(status.height).toBeLessThan(avlBound(model.length));
           const probe = value + 0.5;
@@ -176,6 +177,37 @@ describe("IndexSweepStatus (AVL tree over typed arrays) against a sorted array",
     }
   });
 
+  it("keeps order and removals like a sorted array (the model: a plain sorted array)", () => {
+    fc.assert(
+      fc.property(fc.array(fc.tuple(fc.boolean(), fc.integer({ min: 0, max: 200 })), { maxLength: 300 }), (operations) => {
+        const status = new IndexSweepStatus(402);
+        const model: number[] = [];
+        for (const [add, value] of operations) {
+          if (add && !model.includes(value)) {
+            status.insert(value, less, value);
+            model.push(value);
+            model.sort((a, b) => a - b);
+          } else if (!add && model.includes(value)) {
+            // Half the removals replace the entry in place by a fresh one (value + 201) and remove that.
+            if (value % 2 === 0) {
+              status.replace(value, value + 201);
+              const inPlace = model.map((v) => (v === value ? value + 201 : v));
+              expect(status.items()).toEqual(inPlace);
+              status.remove(value + 201);
+            } else status.remove(value);
+            model.splice(model.indexOf(value), 1);
+          }
+          expect(status.items()).toEqual(model);
+          expect(status.size).toBe(model.length);
+          const probe = value + 0.5;
+          const below = model.filter((v) => v < probe);
+          expect(status.lastWhere(less, probe)).toBe(below.length ? below[below.length - 1] : -1);
+        }
+      }),
+      { numRuns: 200, seed: 3 },
+    );
+  });
+
   it("refuses entries twice, outside its capacity, and replacements that do not fit", () => {
     const status = new IndexSweepStatus(6);
     status.insert(3, less, 3);
@@ -186,5 +218,10 @@ describe("IndexSweepStatus (AVL tree over typed arrays) against a sorted array",
     status.insert(4, less, 4);
     expect(() => status.replace(3, 4)).toThrow(/already in the status/);
     expect(status.items()).toEqual([3, 4]);
+    // A reset empties the status and narrows its capacity to the new room's walls.
+    status.reset(4);
+    expect(status.items()).toEqual([]);
+    expect(() => status.insert(4, () => false, 4)).toThrow(RangeError);
+    expect(() => status.remove(3)).toThrow(RangeError);
   });
 });

@@ -2,7 +2,7 @@
 // - the sweep order (lib/geometry/sweep-order.ts: merge sort, radix sort, runs of equal y) against
 //   JavaScript's own Array sort with the order the issue fixes for the sweep: y descending, ties
 //   in y broken by x (the lexicographic tie-break of Lee & Preparata 1977, as the issue states);
-// - the reusable sweep status (IndexSweepStatus, an AVL tree: reset, finger searches) against a plain sorted array;
+// - (the reusable sweep status is checked in sweep-status.test.ts);
 // - triangulations made with reused work arrays (after bigger rooms and after calls that failed
 //   half-way) against the independent oracle in ./support/oracle.ts (n + 2h - 2 strictly positive
 //   triangles pairing up edge for edge and summing to the floor's area: the textbook count,
@@ -12,7 +12,6 @@ import { describe, expect, it } from "vitest";
 import fc from "fast-check";
 import { deviation, flatten } from "earcut";
 import { sweepOrder } from "@/lib/geometry/sweep-order";
-import { IndexSweepStatus } from "@/lib/geometry/sweep-status";
 import { prepareRoom } from "@/lib/geometry/room";
 import { triangulate } from "@/lib/geometry/triangulate";
 import { comb } from "@/lib/guarding/comb";
@@ -90,67 +89,6 @@ describe("sweep order (lib/geometry/sweep-order.ts) against Array#sort", () => {
       expect(points.length).toBeGreaterThan(8192);
       expect(ourOrder(points)).toEqual(modelOrder(points));
     }
-  });
-});
-
-describe("IndexSweepStatus reused across sweeps (reset, finger searches) against a sorted array", () => {
-  it("keeps order through resets, abandoned sweeps and runs of searches left to right", () => {
-    const value = fc.integer({ min: 0, max: 300 });
-    const operation = fc.oneof(
-      { weight: 4, arbitrary: fc.record({ kind: fc.constant("insert" as const), values: fc.array(value, { maxLength: 60 }) }) },
-      { weight: 3, arbitrary: fc.record({ kind: fc.constant("remove" as const), values: fc.array(value, { maxLength: 20 }) }) },
-      // A run of searches with rising probes, as the sweep makes along one row of a comb.
-      { weight: 3, arbitrary: fc.record({ kind: fc.constant("scan" as const), values: fc.tuple(value, fc.integer({ min: 1, max: 40 })) }) },
-      { weight: 1, arbitrary: fc.record({ kind: fc.constant("reset" as const), values: fc.tuple(fc.integer({ min: 1, max: 301 })) }) },
-    );
-    fc.assert(
-      fc.property(fc.array(operation, { maxLength: 120 }), (operations) => {
-        const status = new IndexSweepStatus(301);
-        let capacity = 301;
-        let model: number[] = [];
-        const below = (probe: number) => model.filter((v) => v < probe).at(-1) ?? -1;
-        for (const op of operations) {
-          if (op.kind === "reset") {
-            // The previous sweep may have stopped with entries still in (a room that failed half-way).
-            capacity = op.values[0];
-            status.reset(capacity);
-            model = [];
-          } else if (op.kind === "insert") {
-            for (const v of op.values) {
-              const value = v % capacity;
-              if (model.includes(value)) continue;
-              status.insert(value, (other, probe) => other < probe, value);
-              model = [...model, value].sort((a, b) => a - b);
-            }
-          } else if (op.kind === "remove") {
-            for (const v of op.values) {
-              const value = v % capacity;
-              if (!model.includes(value)) continue;
-              status.remove(value);
-              model = model.filter((m) => m !== value);
-            }
-          } else {
-            const [start, step] = op.values;
-            for (let probe = start % capacity; probe < capacity; probe += step) {
-              expect(status.lastWhere((v, p) => v < p, probe + 0.5)).toBe(below(probe + 0.5));
-            }
-          }
-          expect(status.items()).toEqual(model);
-          expect(status.size).toBe(model.length);
-        }
-      }),
-      { numRuns: 150, seed: 22 },
-    );
-  });
-
-  it("refuses an entry twice and entries beyond the capacity of its last reset", () => {
-    const status = new IndexSweepStatus(10);
-    status.insert(3, (other, probe) => other < probe, 3);
-    expect(() => status.insert(3, (other, probe) => other < probe, 3)).toThrow(RangeError);
-    status.reset(4);
-    expect(status.items()).toEqual([]);
-    expect(() => status.insert(4, () => false, 4)).toThrow(RangeError);
-    expect(() => status.remove(3)).toThrow(RangeError);
   });
 });
 

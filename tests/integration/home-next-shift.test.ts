@@ -6,12 +6,13 @@ import { vi } from "vitest";
 vi.mock("server-only", () => ({}));
 
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
-import { sql, type Kysely } from "kysely";
+import type { Kysely } from "kysely";
 import { createDb, db as appDb } from "@/db";
 import type { Database } from "@/db/schema";
 import { currentShiftsOfGuard } from "@/db/queries/rosters";
 import { nextShiftOfGuard, shiftsOfGuard } from "@/app/(signed-in)/_queries/shifts";
 import { requireDatabaseUrl } from "./support/database";
+import { publishRosterDirectly } from "./support/rosters";
 
 // A past week of its own (the other tests publish weeks ahead of today) and a guard of its own (no other shifts).
 const WEEK = "2026-03-09";
@@ -21,33 +22,9 @@ let db: Kysely<Database>;
 let siteId: number;
 let guardId: number;
 
-// Publishes a version of WEEK the way publishDraft does: roster and shifts in one transaction
-// (the shifts trigger accepts shifts of a published roster only from the publishing transaction).
-async function publishVersion(version: number, supersedes: number | null, shifts: { starts_at: Date; ends_at: Date }[]) {
-  return db.transaction().execute(async (trx) => {
-    const roster = await trx
-      .insertInto("rosters")
-      .values({
-        site_id: siteId,
-        starts_on: WEEK,
-        days: 7,
-        status: "published",
-        version,
-        published_at: sql<Date>`now()`,
-        supersedes,
-        unfilled: "[]",
-        violations: "[]",
-      })
-      .returning(["id"])
-      .executeTakeFirstOrThrow();
-    for (const shift of shifts) {
-      await trx
-        .insertInto("shifts")
-        .values({ roster_id: roster.id, guard_id: guardId, starts_at: shift.starts_at, ends_at: shift.ends_at, segments: "[]", breaks: "[]" })
-        .execute();
-    }
-    return roster.id;
-  });
+/** Publishes a version of WEEK holding this test's guard's shifts. */
+function publishVersion(version: number, supersedes: number | null, shifts: { starts_at: Date; ends_at: Date }[]) {
+  return publishRosterDirectly(db, { siteId, startsOn: WEEK, version, supersedes }, shifts.map((s) => ({ ...s, guardId })));
 }
 
 beforeAll(async () => {

@@ -16,6 +16,7 @@ import { isPassingMailFailure } from "@/lib/rosters/mail";
 import { rosterJobHandlers } from "@/lib/rosters/jobs";
 import { ROSTER_MAIL_JOB } from "@/lib/rosters/publish";
 import { requireDatabaseUrl } from "./support/database";
+import { publishRosterDirectly } from "./support/rosters";
 
 // A past week of its own (the other tests publish weeks ahead of today) and two guards of its own.
 const WEEK = "2026-02-09";
@@ -45,21 +46,11 @@ beforeAll(async () => {
     .values(EMAILS.map((email, i) => ({ site_id: siteId, name: `Mail retry guard ${i + 1}`, email, contract_hours: 30, max_hours: 40 })))
     .returning("id")
     .execute();
-  // Published the way publishDraft does: roster and shifts in one transaction.
-  rosterId = await db.transaction().execute(async (trx) => {
-    const roster = await trx
-      .insertInto("rosters")
-      .values({ site_id: siteId, starts_on: WEEK, days: 7, status: "published", version: 1, published_at: sql<Date>`now()`, unfilled: "[]", violations: "[]" })
-      .returning("id")
-      .executeTakeFirstOrThrow();
-    for (const guard of guards) {
-      await trx
-        .insertInto("shifts")
-        .values({ roster_id: roster.id, guard_id: guard.id, starts_at: new Date(`${WEEK}T09:00:00Z`), ends_at: new Date(`${WEEK}T17:00:00Z`), segments: "[]", breaks: "[]" })
-        .execute();
-    }
-    return roster.id;
-  });
+  rosterId = await publishRosterDirectly(
+    db,
+    { siteId, startsOn: WEEK, version: 1 },
+    guards.map((guard) => ({ guardId: guard.id, starts_at: new Date(`${WEEK}T09:00:00Z`), ends_at: new Date(`${WEEK}T17:00:00Z`) })),
+  );
 });
 
 afterAll(async () => {

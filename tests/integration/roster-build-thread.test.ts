@@ -15,15 +15,11 @@ import { storedRoster } from "@/lib/rosters/stored";
 import { buildRoster } from "@/lib/scheduling/engine";
 import { loadHighs } from "@/lib/scheduling/highsSolver";
 import { requireDatabaseUrl } from "./support/database";
+import { mondayAhead } from "./support/rosters";
 
 // A week inside the seeded exhibition (which runs 26 weeks past the seeding day) that no other test
 // builds: the Monday ten to eleven weeks ahead (the other tests take weeks one to about eight ahead).
-const WEEK = (() => {
-  const now = new Date();
-  const day = new Date(Date.UTC(now.getUTCFullYear(), now.getUTCMonth(), now.getUTCDate() + 70));
-  while (day.getUTCDay() !== 1) day.setUTCDate(day.getUTCDate() + 1);
-  return day.toISOString().slice(0, 10);
-})();
+const WEEK = mondayAhead(70);
 const ROUND_TRIPS = 20;
 let db: Kysely<Database>;
 let siteId: number;

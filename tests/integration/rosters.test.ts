@@ -17,6 +17,7 @@ import { rosterJobHandlers } from "@/lib/rosters/jobs";
 import { RosterProblem } from "@/lib/rosters/problem";
 import { publishDraft, ROSTER_BUILD_JOB, ROSTER_MAIL_JOB } from "@/lib/rosters/publish";
 import { requireDatabaseUrl } from "./support/database";
+import { mondayAhead } from "./support/rosters";
 import { SITE } from "@/db/seed/museum";
 import { parseLocal } from "@/lib/scheduling/time";
 import { TZDate } from "@date-fns/tz";
@@ -28,9 +29,7 @@ import { format } from "date-fns";
  * to two weeks ahead), which share this database.
  */
 function quietWeekAhead(): string {
-  const now = new Date();
-  const day = new Date(Date.UTC(now.getUTCFullYear(), now.getUTCMonth(), now.getUTCDate() + 28));
-  while (day.getUTCDay() !== 1) day.setUTCDate(day.getUTCDate() + 1);
+  const day = new Date(`${mondayAhead(28)}T00:00:00Z`);
   const dated = Object.keys(SITE.opening_hours.dates ?? {});
   const iso = (d: Date) => d.toISOString().slice(0, 10);
   const weekOf = (monday: Date) => Array.from({ length: 7 }, (_, i) => iso(new Date(monday.getTime() + i * 86_400_000)));
