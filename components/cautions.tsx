@@ -1,4 +1,4 @@
-// The cautions PRODUCT.md asks the product to show wherever plans and rosters are shown.
+// The cautions README.md asks the product to show wherever plans and rosters are shown.
 export const CAUTIONS = [
   "A post plan is a sightline aid, not a security risk assessment; CCTV, alarms and local requirements are outside it.",
   "Posts must never block exits, evacuation routes or fire-safety equipment; local fire and building codes govern.",

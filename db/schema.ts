@@ -37,7 +37,7 @@ export type RosterStatus = (typeof ROSTER_STATUSES)[number];
 export type Weekday = "mon" | "tue" | "wed" | "thu" | "fri" | "sat" | "sun";
 /** Local wall-clock opening, ["HH:mm", "HH:mm"], or null when closed. */
 export type OpeningSpan = [string, string] | null;
-/** A site's opening hours: the weekly pattern plus dated exceptions (INTERFACES.md `opening`). */
+/** A site's opening hours: the weekly pattern plus dated exceptions (scripts/README.md `opening`). */
 export interface OpeningHours {
   weekly: Record<Weekday, OpeningSpan>;
   dates: Record<string, OpeningSpan>;
@@ -139,7 +139,7 @@ export interface RostersTable {
   supersedes: ColumnType<number | null, number | null | undefined, number | null>;
   /** Bumped by every manual edit of a draft, so publishing what you loaded can be checked (0004). */
   revision: Generated<number>;
-  /** The scenario the engine staffed (INTERFACES.md roster input), kept so edits are checked by the same rules. */
+  /** The scenario the engine staffed (scripts/README.md roster input), kept so edits are checked by the same rules. */
   scenario: ColumnType<unknown, string | null | undefined, string | null>;
   unfilled: ColumnType<RosterUnfilled[], string | undefined, string>;
   totals: ColumnType<RosterTotals | null, string | null | undefined, string | null>;

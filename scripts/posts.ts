@@ -2,7 +2,7 @@
 // Plans posts for every room in the GeoJSON files ("-" reads standard input) and prints one JSON
 // document {rooms, errors} on stdout; logs go to stderr. Exit 0 when all input was valid, 2 when
 // some was not (the valid rooms are still answered), 1 on an internal failure.
-// Contract: ../shared/design/INTERFACES.md.
+// Contract: scripts/README.md.
 import { readFileSync } from "node:fs";
 import { roomsFromGeoJson } from "../lib/geometry/geojson";
 import { planRoomReport, type RoomErrorEntry, type RoomReport, type RoomReportOptions } from "../lib/guarding/room-report";

@@ -1,4 +1,4 @@
-// `npm run --silent roster -- SCENARIO.json` (or `-` for stdin): one JSON document on stdout (INTERFACES.md), logs on stderr.
+// `npm run --silent roster -- SCENARIO.json` (or `-` for stdin): one JSON document on stdout (scripts/README.md), logs on stderr.
 // Exit 0 = valid input answered, 2 = invalid input (errors name the field), 1 = internal failure.
 import { readFileSync } from "node:fs";
 import { buildRoster } from "@/lib/scheduling/engine";

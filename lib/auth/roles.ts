@@ -22,7 +22,7 @@ export const PERMISSIONS = [
 ] as const;
 export type Permission = (typeof PERMISSIONS)[number];
 
-// PRODUCT.md's table of people: curators shape rooms, operations plan and staff,
+// README.md's table of people: curators shape rooms, operations plan and staff,
 // guards see their own shifts, admins run users, sites and mail.
 const GRANTS: Record<Role, readonly Permission[]> = {
   curator: ["galleries:view", "rooms:edit"],

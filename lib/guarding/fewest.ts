@@ -20,7 +20,7 @@ export function planFewest(
   return planFewestOver(room, triangulation, { ...options, startingPlan: guaranteedPosts });
 }
 
-/** The `fewest` object of the `posts` command's room (INTERFACES.md), with a few extra fields. */
+/** The `fewest` object of the `posts` command's room (scripts/README.md), with a few extra fields. */
 export function fewestReport(plan: FewestPlan) {
   return {
     posts: plan.posts,

@@ -1,6 +1,6 @@
 // One room's answer for the `posts` command and the plan preview: validate, triangulate, plan the
 // guaranteed posts (and, where marked below, the fewest posts), with timings. The JSON shape is the
-// contract of ../shared/design/INTERFACES.md.
+// contract of scripts/README.md.
 import type { Point } from "../geometry/types";
 import type { NamedRoom } from "../geometry/geojson";
 import { prepareRoom, roomArea, roomCounts, type RoomProblem } from "../geometry/room";

@@ -1,4 +1,4 @@
-// From the database's rows to the staffing engine's scenario (INTERFACES.md roster input): the
+// From the database's rows to the staffing engine's scenario (scripts/README.md roster input): the
 // site's zone, opening hours and hourly rate, the approved posts, the guards with their contracts
 // and skills, approved time off as unavailability, and the default rules.
 import { parseScenario, type Scenario } from "@/lib/scheduling/scenario";

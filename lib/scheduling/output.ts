@@ -1,4 +1,4 @@
-// The roster command's JSON (INTERFACES.md): wall-clock times in the site's zone, totals and violations.
+// The roster command's JSON (scripts/README.md): wall-clock times in the site's zone, totals and violations.
 import type { RosterResult } from "./engine";
 import type { Roster, Violation } from "./roster";
 import type { Scenario } from "./scenario";

@@ -1,4 +1,4 @@
-// The roster command's input (INTERFACES.md): one zod schema types and validates it, and its errors name the field.
+// The roster command's input (scripts/README.md): one zod schema types and validates it, and its errors name the field.
 import { z } from "zod";
 
 const clock = z.string().regex(/^([01]\d|2[0-4]):[0-5]\d$/, "expected a time HH:mm");

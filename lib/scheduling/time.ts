@@ -18,7 +18,7 @@ export function parseLocal(zone: string, local: string): number {
   return localToInstant(zone, local.slice(0, 10), local.slice(11, 16));
 }
 
-/** Formats an instant as the zone's wall clock `YYYY-MM-DDTHH:mm` (INTERFACES.md output form). */
+/** Formats an instant as the zone's wall clock `YYYY-MM-DDTHH:mm` (scripts/README.md output form). */
 export function formatLocal(zone: string, instant: number): string {
   return format(new TZDate(instant, zone), "yyyy-MM-dd'T'HH:mm");
 }

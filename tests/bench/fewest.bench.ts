@@ -12,7 +12,7 @@ import { planGuaranteed } from "../../lib/guarding/guaranteed";
 import { planFewest } from "../../lib/guarding/fewest";
 import type { Point } from "../../lib/geometry/types";
 
-const folder = path.join(path.dirname(fileURLToPath(import.meta.url)), "../../../shared/benchmarks/agplib");
+const folder = path.join(path.dirname(fileURLToPath(import.meta.url)), "../fixtures/agplib");
 const TIME_LIMIT = Number(process.env.FEWEST_TIME_LIMIT ?? 10);
 
 export default async function (): Promise<string> {

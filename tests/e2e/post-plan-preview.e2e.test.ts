@@ -1,5 +1,5 @@
 // POST /api/post-plans/preview against the built app with real next-auth sign-ins: 401 signed out,
-// 403 for a guard, 200 with the `posts` command's room JSON (../shared/design/INTERFACES.md) for a
+// 403 for a guard, 200 with the `posts` command's room JSON (scripts/README.md) for a
 // curator and for operations, 422 with the reason for a bad room, and nothing stored.
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { DEMO_ACCOUNTS, DEMO_PASSWORD } from "@/db/seed/accounts";

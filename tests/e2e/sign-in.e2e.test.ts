@@ -55,7 +55,7 @@ describe("each demo role signs in and lands on its home", () => {
         const nav = page.getByRole("navigation", { name: "Main" });
         for (const entry of home.nav) await expect(nav.getByRole("link", { name: entry }).count()).resolves.toBe(1);
         for (const entry of home.notNav) await expect(nav.getByRole("link", { name: entry }).count()).resolves.toBe(0);
-        // The cautions PRODUCT.md asks for are on every signed-in page.
+        // The cautions README.md asks for are on every signed-in page.
         await shown(page.getByText("A post plan is a sightline aid, not a security risk assessment"));
         await shown(page.getByText("Posts must never block exits"));
         await shown(page.getByText("Labour rules are defaults"));

@@ -1,6 +1,6 @@
 // GeoJSON rooms (lib/geometry/geojson.ts). Source: the GeoJSON structure of RFC 7946 (Feature,
 // FeatureCollection, Polygon, MultiPolygon; ring 0 the exterior, further rings holes), read here as
-// planar metres per ../shared/design/INTERFACES.md.
+// planar metres per scripts/README.md.
 import { describe, expect, it } from "vitest";
 import { roomsFromGeoJson, roomToFeature } from "@/lib/geometry/geojson";
 

@@ -1,4 +1,4 @@
-// The `posts` command (scripts/posts.ts) against its contract in ../shared/design/INTERFACES.md:
+// The `posts` command (scripts/posts.ts) against its contract in scripts/README.md:
 // one JSON document on stdout, exit 0 when all input is valid, 2 when some is not, rooms and
 // errors fields as specified. Inputs: AGPLIB benchmark polygons (AGPLIB, Univ. of Campinas) and
 // the hard-case fixtures.

@@ -67,8 +67,8 @@ describe("roles: who may do what", () => {
     expect(labels("admin")).toEqual(["Settings", "Users", "Mail"]);
   });
 
-  // PRODUCT.md's table: curators edit rooms, operations approve plans and publish rosters, guards see their own shifts.
-  it("grants the actions of PRODUCT.md's table and nothing across", () => {
+  // README.md's table: curators edit rooms, operations approve plans and publish rosters, guards see their own shifts.
+  it("grants the actions of README.md's table and nothing across", () => {
     expect(can("curator", "rooms:edit")).toBe(true);
     expect(can("operations", "plans:approve")).toBe(true);
     expect(can("operations", "rosters:publish")).toBe(true);

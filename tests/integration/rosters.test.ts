@@ -111,7 +111,7 @@ describe("building, publishing and mailing a week", () => {
     expect(shifts.length).toBe(result.shifts);
     expect(shifts.length).toBeGreaterThan(0);
 
-    // Demand = posts x opening hours (PRODUCT.md): the seeded week opens Tue-Sat 10-18 with Thursday
+    // Demand = posts x opening hours (README.md): the seeded week opens Tue-Sat 10-18 with Thursday
     // to 21, Sunday 11-18, Monday closed: 4 x 8 + 11 + 7 = 50 hours.
     const posts = await postsForWeek(db, siteId, "Europe/Berlin", WEEK);
     expect(posts.length).toBeGreaterThan(0);

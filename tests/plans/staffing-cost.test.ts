@@ -11,7 +11,7 @@ import {
   type WeeklyOpening,
 } from "@/lib/guarding/staffing-cost";
 
-// The weekly pattern of INTERFACES.md's `opening` example.
+// The weekly pattern of scripts/README.md's `opening` example.
 const INTERFACES_WEEK: WeeklyOpening = {
   mon: null,
   tue: ["10:00", "18:00"],
@@ -39,7 +39,7 @@ describe("opening hours → open hours", () => {
     expect(openHoursOfDay(["00:00", "24:00"])).toBe(24);
   });
 
-  it("sums the weekly pattern: 8 + 8 + 11 + 8 + 8 + 6 = 49 hours for INTERFACES.md's example", () => {
+  it("sums the weekly pattern: 8 + 8 + 11 + 8 + 8 + 6 = 49 hours for scripts/README.md's example", () => {
     expect(weeklyOpenHours(INTERFACES_WEEK)).toBe(49);
   });
 

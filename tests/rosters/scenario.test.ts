@@ -1,5 +1,5 @@
 // Scenario assembly from database rows (lib/rosters/scenario.ts) against the roster command's
-// input contract (INTERFACES.md) and the engine's own parser; and a manual reassignment checked by
+// input contract (scripts/README.md) and the engine's own parser; and a manual reassignment checked by
 // the engine's rule checks.
 import { describe, expect, it } from "vitest";
 import { assembleScenario, guardIdOfKey, guardKey, isMonday, type ScenarioRows } from "@/lib/rosters/scenario";
@@ -46,14 +46,14 @@ const rows: ScenarioRows = {
 describe("assembleScenario", () => {
   const scenario = assembleScenario(rows);
 
-  it("carries the site's zone, week, opening hours and hourly rate, with the default rules otherwise (INTERFACES.md)", () => {
+  it("carries the site's zone, week, opening hours and hourly rate, with the default rules otherwise (scripts/README.md)", () => {
     expect(scenario.timezone).toBe("Europe/Berlin");
     expect(scenario.start).toBe("2027-03-22");
     expect(scenario.days).toBe(7);
     expect(scenario.opening.weekly.thu).toEqual(["10:00", "21:00"]);
     expect(scenario.opening.dates).toEqual({ "2027-03-26": null });
     expect(scenario.rules.hourlyRate).toBe(23.5);
-    // INTERFACES.md: "Every rule has the default shown."
+    // scripts/README.md: "Every rule has the default shown."
     expect(scenario.rules).toMatchObject({ slotMinutes: 60, minShiftHours: 4, maxShiftHours: 10, minRestHours: 11, breakAfterHours: 6, breakMinutes: 60, maxHoursAtOnePost: 2, overtimeAfterHours: 40, overtimeFactor: 1.5 });
   });
 

@@ -19,7 +19,7 @@ function parse(input: unknown): Scenario {
   return parsed.scenario;
 }
 
-/** Totals recomputed here from the shifts alone, the way INTERFACES.md defines them. */
+/** Totals recomputed here from the shifts alone, the way scripts/README.md defines them. */
 function recompute(s: Scenario, shifts: Shift[]) {
   const paid = shifts.reduce((sum, sh) => sum + paidMs(sh, s.rules.paidBreaks), 0) / HOUR;
   const weekStart = buildDemand(s).dayStarts;

@@ -1,4 +1,4 @@
-// The roster command end to end (INTERFACES.md): one JSON document on stdout, exit 0 for valid input, 2 naming the field otherwise.
+// The roster command end to end (scripts/README.md): one JSON document on stdout, exit 0 for valid input, 2 naming the field otherwise.
 import { spawnSync } from "node:child_process";
 import { readFileSync } from "node:fs";
 import { describe, expect, it } from "vitest";

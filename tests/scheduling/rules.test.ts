@@ -1,4 +1,4 @@
-// Each hard rule of INTERFACES.md against a hand-made roster that breaks it exactly once: the check catches it, and only it.
+// Each hard rule of scripts/README.md against a hand-made roster that breaks it exactly once: the check catches it, and only it.
 import { describe, expect, it } from "vitest";
 import type { Roster, Shift } from "@/lib/scheduling/roster";
 import { checkRoster } from "@/lib/scheduling/rules";

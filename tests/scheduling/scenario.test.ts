@@ -1,4 +1,4 @@
-// Malformed scenario files are answered with errors that name the field (INTERFACES.md: exit 2, valid part still answered).
+// Malformed scenario files are answered with errors that name the field (scripts/README.md: exit 2, valid part still answered).
 import { readFileSync } from "node:fs";
 import { describe, expect, it } from "vitest";
 import { parseScenario } from "@/lib/scheduling/scenario";
@@ -6,12 +6,12 @@ import { parseScenario } from "@/lib/scheduling/scenario";
 const fixture = (name: string) => JSON.parse(readFileSync(`tests/fixtures/scenarios/${name}`, "utf8"));
 
 describe("parseScenario", () => {
-  it("accepts the INTERFACES.md example and fills every rule default", () => {
+  it("accepts the scripts/README.md example and fills every rule default", () => {
     const parsed = parseScenario(fixture("textile-week.json"));
     expect(parsed.ok).toBe(true);
     const bare = parseScenario({ timezone: "Europe/Berlin", start: "2027-03-22", opening: { weekly: {} }, posts: [], guards: [] });
     if (!bare.ok) throw new Error("bare scenario rejected");
-    // Defaults as INTERFACES.md lists them.
+    // Defaults as scripts/README.md lists them.
     expect(bare.scenario.rules).toMatchObject({ slotMinutes: 60, minShiftHours: 4, maxShiftHours: 10, minRestHours: 11, breakAfterHours: 6, breakMinutes: 60, maxHoursAtOnePost: 2, overtimeAfterHours: 40, overtimeFactor: 1.5, hourlyRate: 22, paidBreaks: false });
     expect(bare.scenario.days).toBe(7);
   });

@@ -1,5 +1,5 @@
 // The `posts` command's fewest fields, --sight-range and --time-limit, against the contract in
-// ../shared/design/INTERFACES.md, on a comb (Chvátal 1975: k prongs need k posts) and an AGPLIB
+// scripts/README.md, on a comb (Chvátal 1975: k prongs need k posts) and an AGPLIB
 // polygon (AGPLIB, Univ. of Campinas).
 import { describe, expect, it } from "vitest";
 import { spawnSync } from "node:child_process";
@@ -33,7 +33,7 @@ describe("npm run posts: the fewest plan", () => {
     expect(typeof room.ms.fewest).toBe("number");
   });
   it("applies --sight-range to the plan and reports it, and --guaranteed-only leaves fewest out", () => {
-    const agplib = path.resolve(repo, "../shared/benchmarks/agplib/randsimple-20-2.geojson");
+    const agplib = path.resolve(repo, "tests/fixtures/agplib/randsimple-20-2.geojson");
     const limited = posts(["--time-limit", "2", "--sight-range", "3", agplib]);
     expect(limited.status).toBe(0);
     expect(limited.json.rooms[0].sightRange).toBe(3);

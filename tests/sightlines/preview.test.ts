@@ -1,5 +1,5 @@
 // The plan preview's core (POST /api/post-plans/preview without the server): the answer has the
-// `posts` command's room shape (../shared/design/INTERFACES.md), bad rooms give 422 with the reason.
+// `posts` command's room shape (scripts/README.md), bad rooms give 422 with the reason.
 import { describe, expect, it } from "vitest";
 import { previewPostPlan } from "@/lib/guarding/fewest-preview";
 
@@ -17,7 +17,7 @@ describe("plan preview", () => {
     const room = answer.body.room;
     expect(room.name).toBe("east-gallery");
     expect(room.vertices).toBe(6);
-    expect(room.triangles).toBe(4); // n + 2h - 2 (INTERFACES.md)
+    expect(room.triangles).toBe(4); // n + 2h - 2 (scripts/README.md)
     expect(room.bound).toBe(2); // floor((n + 2h) / 3)
     expect(room.fewest?.posts).toHaveLength(1); // an L-shaped room is seen from its reflex corner
     expect(room.fewest?.proven).toBe(true);

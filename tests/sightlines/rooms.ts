@@ -3,7 +3,7 @@ import { readFileSync } from "node:fs";
 import { prepareRoom } from "@/lib/geometry/room";
 import type { Point, Room } from "@/lib/geometry/types";
 
-const AGPLIB = "../shared/benchmarks/agplib/";
+const AGPLIB = "tests/fixtures/agplib/";
 
 /** A normalised AGPLIB room by file name (without .geojson). */
 export function agplibRoom(name: string): Room {

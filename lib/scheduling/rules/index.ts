@@ -1,4 +1,4 @@
-// checkRoster: every hard rule of INTERFACES.md, shared by the engine, manual edits and the tests.
+// checkRoster: every hard rule of scripts/README.md, shared by the engine, manual edits and the tests.
 import type { Roster, Violation } from "../roster";
 import type { Scenario } from "../scenario";
 import { checkAvailability } from "./availability";

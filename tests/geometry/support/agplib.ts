@@ -1,11 +1,11 @@
-// The public AGPLIB benchmark polygons (AGPLIB, Univ. of Campinas; see ../shared/benchmarks/agplib/
-// SOURCE.md), read as rooms. The folder sits at ../shared beside the repository, here and in CI.
+// The public AGPLIB benchmark polygons (AGPLIB, Univ. of Campinas; see tests/fixtures/agplib/
+// SOURCE.md), read as rooms.
 import { readdirSync, readFileSync } from "node:fs";
 import path from "node:path";
 import { fileURLToPath } from "node:url";
 import type { P, PlainRoom } from "./oracle";
 
-export const AGPLIB_FOLDER = path.resolve(path.dirname(fileURLToPath(import.meta.url)), "../../../../shared/benchmarks/agplib");
+export const AGPLIB_FOLDER = path.resolve(path.dirname(fileURLToPath(import.meta.url)), "../../fixtures/agplib");
 
 export interface BenchmarkPolygon {
   file: string;

@@ -96,7 +96,7 @@ export function RoomWorkspace({ initial, canEdit, canApprove, exhibitionId, caut
       setFewestState("computing");
       try {
         // The preview takes a GeoJSON Polygon (ring 0 the outline, then obstacles) and answers the
-        // `posts` command's room JSON (INTERFACES.md) with its `fewest` field.
+        // `posts` command's room JSON (scripts/README.md) with its `fewest` field.
         const response = await apiFetch<{ room?: { fewest?: FewestPreview } }>("/api/post-plans/preview", {
           body: {
             room: { type: "Polygon", coordinates: [room.outline, ...room.obstacles] },
