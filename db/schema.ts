@@ -74,7 +74,28 @@ export interface SitesTable {
   time_zone: string;
   hourly_rate: Numeric;
   opening_hours: Json<OpeningHours>;
+  /** BCP 47 locale every date, time and number is shown in, e.g. "en-GB" (0006). */
+  locale: ColumnType<string, string | undefined, string>;
+  /** ISO 4217 code money is shown in, e.g. "EUR" (0006). */
+  currency: ColumnType<string, string | undefined, string>;
+  /** The site's default labour rules: partial overrides of the engine's rules (0006). */
+  labour_rules: ColumnType<SiteLabourRules, string | undefined, string>;
+  /** From address of the product's mail; null = the app's default (0006). */
+  mail_sender: ColumnType<string | null, string | null | undefined, string | null>;
 }
+
+/**
+ * A site's labour-rule defaults as stored: any of the engine's rule fields
+ * (lib/scheduling/scenario.ts `rulesSchema`), plus the extra hours a week a guard accepts beyond
+ * contract when the guard has no value of their own.
+ */
+export interface SiteLabourRules {
+  acceptedExtraHours?: number;
+  [rule: string]: unknown;
+}
+
+/** When a guard can work, per weekday: local ["HH:mm", "HH:mm"] spans; a missing day = not available. */
+export type WeeklyAvailability = Partial<Record<Weekday, Array<[string, string]>>>;
 
 export interface FloorsTable {
   id: GeneratedAlways<number>;
@@ -124,6 +145,12 @@ export interface GuardsTable {
   skills: Generated<string[]>;
   /** The secret in the guard's personal calendar feed address (0004; a random default). */
   calendar_token: Generated<string>;
+  /** Extra hours a week beyond contract the guard accepts; null = the site's default (0006). */
+  accepted_extra_hours: ColumnType<number | null, number | string | null | undefined, number | string | null>;
+  /** False once the guard has left: kept for history, never rostered (0006). */
+  active: Generated<boolean>;
+  /** Weekly availability; null = any time (0006). */
+  availability: ColumnType<WeeklyAvailability | null, string | null | undefined, string | null>;
 }
 
 export interface RostersTable {
