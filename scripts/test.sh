@@ -66,8 +66,15 @@ mkdir -p "$MAIL_DIR"
 db_prepare
 mail_fake_start
 
-phase "unit and integration tests (vitest)"
-"$ROOT/node_modules/.bin/vitest" run
+# For work on one part: UNIT_TESTS / E2E_TESTS narrow a phase to the vitest filters they hold
+# (e.g. UNIT_TESTS=tests/integration/rosters E2E_TESTS=none); "none" skips the phase. CI sets neither.
+UNIT_TESTS=${UNIT_TESTS:-}
+E2E_TESTS=${E2E_TESTS:-}
+if [ "$UNIT_TESTS" != none ]; then
+  phase "unit and integration tests (vitest)"
+  # shellcheck disable=SC2086
+  "$ROOT/node_modules/.bin/vitest" run $UNIT_TESTS
+fi
 
 phase "build (next build)"
 next_build
@@ -76,9 +83,12 @@ phase "serve the build on 127.0.0.1:$TEST_PORT"
 next_serve "$TEST_PORT" "$ROOT/.data/logs/app-test.log"
 say "the app answers at $E2E_BASE_URL (log: .data/logs/app-test.log)"
 
-if [ -f "$ROOT/vitest.e2e.config.ts" ]; then
+if [ "$E2E_TESTS" = none ]; then
+  say "E2E_TESTS=none: browser tests skipped"
+elif [ -f "$ROOT/vitest.e2e.config.ts" ]; then
   phase "browser tests (vitest --config vitest.e2e.config.ts)"
-  "$ROOT/node_modules/.bin/vitest" run --config vitest.e2e.config.ts
+  # shellcheck disable=SC2086
+  "$ROOT/node_modules/.bin/vitest" run --config vitest.e2e.config.ts $E2E_TESTS
 else
   say "no vitest.e2e.config.ts yet: no browser tests to run"
 fi
