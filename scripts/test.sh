@@ -76,21 +76,23 @@ if [ "$UNIT_TESTS" != none ]; then
   "$ROOT/node_modules/.bin/vitest" run $UNIT_TESTS
 fi
 
-phase "build (next build)"
-next_build
-
-phase "serve the build on 127.0.0.1:$TEST_PORT"
-next_serve "$TEST_PORT" "$ROOT/.data/logs/app-test.log"
-say "the app answers at $E2E_BASE_URL (log: .data/logs/app-test.log)"
-
 if [ "$E2E_TESTS" = none ]; then
-  say "E2E_TESTS=none: browser tests skipped"
-elif [ -f "$ROOT/vitest.e2e.config.ts" ]; then
-  phase "browser tests (vitest --config vitest.e2e.config.ts)"
-  # shellcheck disable=SC2086
-  "$ROOT/node_modules/.bin/vitest" run --config vitest.e2e.config.ts $E2E_TESTS
+  say "E2E_TESTS=none: no build, no browser tests"
 else
-  say "no vitest.e2e.config.ts yet: no browser tests to run"
+  phase "build (next build)"
+  next_build
+
+  phase "serve the build on 127.0.0.1:$TEST_PORT"
+  next_serve "$TEST_PORT" "$ROOT/.data/logs/app-test.log"
+  say "the app answers at $E2E_BASE_URL (log: .data/logs/app-test.log)"
+
+  if [ -f "$ROOT/vitest.e2e.config.ts" ]; then
+    phase "browser tests (vitest --config vitest.e2e.config.ts)"
+    # shellcheck disable=SC2086
+    "$ROOT/node_modules/.bin/vitest" run --config vitest.e2e.config.ts $E2E_TESTS
+  else
+    say "no vitest.e2e.config.ts yet: no browser tests to run"
+  fi
 fi
 
 phase "done"
