@@ -10,6 +10,7 @@
 import type { ColumnType, Generated, GeneratedAlways, Insertable, Selectable, Updateable } from "kysely";
 import type { Point, Ring } from "@/lib/geometry/types";
 import type { Totals } from "@/lib/scheduling/totals";
+import type { PublishReview } from "@/lib/rosters/review";
 
 /** A jsonb column: read as T, written as JSON text (use toJson). */
 export type Json<T> = ColumnType<T, string, string>;
@@ -173,6 +174,14 @@ export interface RostersTable {
   violations: ColumnType<RosterViolation[], string | undefined, string>;
   created_by: ColumnType<number | null, number | null | undefined, number | null>;
   published_by: ColumnType<number | null, number | null | undefined, number | null>;
+  /** The draft revision a published version was made from; each revision is published once (0040). */
+  draft_revision: ColumnType<number | null, number | null | undefined, number | null>;
+  /** What the publish review showed when this version was published (0040). */
+  publish_review: ColumnType<PublishReview | null, string | null | undefined, string | null>;
+  /** What the manager typed to confirm publishing with a high-risk room empty (0040). */
+  publish_confirmation: ColumnType<string | null, string | null | undefined, string | null>;
+  /** The manager's note on publishing with a high-risk room empty (0040). */
+  publish_note: ColumnType<string | null, string | null | undefined, string | null>;
 }
 
 /** A post-slot nobody staffs (timestamps as ISO text), with the engine's reason. */

@@ -54,12 +54,42 @@ export async function draftOfWeek(handle: Handle, siteId: number, startsOn: stri
 export async function publishedVersionsOfWeek(handle: Handle, siteId: number, startsOn: string) {
   return handle
     .selectFrom("rosters")
-    .select(["id", "version", "published_at", "supersedes", "revision"])
+    .select(["id", "version", "published_at", "supersedes", "revision", "draft_revision", "publish_note", "publish_confirmation", "published_by"])
     .where("site_id", "=", siteId)
     .where("starts_on", "=", startsOn)
     .where("status", "=", "published")
     .orderBy("version", "desc")
     .execute();
+}
+
+/** The published version made from a revision of the week's draft, if any. */
+export async function publishedVersionOfRevision(handle: Handle, siteId: number, startsOn: string, revision: number) {
+  return (
+    (await handle
+      .selectFrom("rosters")
+      .select(["id", "version"])
+      .where("site_id", "=", siteId)
+      .where("starts_on", "=", startsOn)
+      .where("status", "=", "published")
+      .where("draft_revision", "=", revision)
+      .executeTakeFirst()) ?? null
+  );
+}
+
+/** The published version made from a revision of the draft with this id, if any. */
+export async function publishedVersionOfRevisionOfRoster(handle: Handle, draftId: number, revision: number) {
+  return (
+    (await handle
+      .selectFrom("rosters as draft")
+      .innerJoin("rosters as published", (join) =>
+        join.onRef("published.site_id", "=", "draft.site_id").onRef("published.starts_on", "=", "draft.starts_on"),
+      )
+      .select(["published.id", "published.version"])
+      .where("draft.id", "=", draftId)
+      .where("published.status", "=", "published")
+      .where("published.draft_revision", "=", revision)
+      .executeTakeFirst()) ?? null
+  );
 }
 
 /** Every roster of a site, newest week first, with its shift count. */
@@ -76,6 +106,8 @@ export async function rostersOfSite(handle: Handle, siteId: number) {
       "rosters.revision",
       "rosters.published_at",
       "rosters.supersedes",
+      "rosters.draft_revision",
+      "rosters.publish_note",
       eb.fn.count<string>("shifts.id").as("shifts"),
     ])
     .where("rosters.site_id", "=", siteId)

@@ -5,7 +5,7 @@ import type { Kysely } from "kysely";
 import { sql } from "kysely";
 import type { Database, Roster as RosterRow } from "@/db/schema";
 import { enqueueJob } from "@/db/queries/jobs";
-import { publishedVersionsOfWeek } from "@/db/queries/rosters";
+import { publishedVersionOfRevision, publishedVersionOfRevisionOfRoster, publishedVersionsOfWeek } from "@/db/queries/rosters";
 import { lockDraft } from "./edit";
 import { RosterProblem } from "./problem";
 
@@ -29,6 +29,9 @@ export async function publishDraft(db: Kysely<Database>, request: PublishRequest
   try {
     return await db.transaction().execute(async (trx) => {
       const draft = await lockDraft(trx, request.rosterId, request.revision);
+      // A second Publish of the same revision waited for the first one's lock; it now sees the version.
+      const already = await publishedVersionOfRevision(trx, draft.site_id, draft.starts_on, draft.revision);
+      if (already) throw alreadyPublished(draft.revision, already.version, already.id);
       if (draft.violations.length > 0) {
         throw new RosterProblem(409, "breaks-rules", `The draft breaks ${draft.violations.length} rule(s), first: ${draft.violations[0]!.message}. Fix or rebuild it before publishing.`);
       }
@@ -45,6 +48,7 @@ export async function publishDraft(db: Kysely<Database>, request: PublishRequest
           published_at: sql<Date>`now()`,
           supersedes: previous?.id ?? null,
           revision: draft.revision,
+          draft_revision: draft.revision,
           scenario: JSON.stringify(draft.scenario),
           unfilled: JSON.stringify(draft.unfilled),
           totals: draft.totals === null ? null : JSON.stringify(draft.totals),
@@ -72,10 +76,25 @@ export async function publishDraft(db: Kysely<Database>, request: PublishRequest
       };
     });
   } catch (error) {
+    const { code, constraint } = error as { code?: string; constraint?: string };
+    // The unique index on the draft revision lets each revision become a version once.
+    if (code === "23505" && constraint === "rosters_published_once") {
+      const published = await publishedVersionOfRevisionOfRoster(db, request.rosterId, request.revision);
+      throw alreadyPublished(request.revision, published?.version ?? null, published?.id ?? null);
+    }
     // Two publications of the same week at once: the unique version index lets only one through.
-    if ((error as { code?: string }).code === "23505") {
+    if (code === "23505") {
       throw new RosterProblem(409, "published-meanwhile", "Someone published this week at the same moment; reload to see the new version.");
     }
     throw error;
   }
+}
+
+function alreadyPublished(revision: number, version: number | null, rosterId: number | null): RosterProblem {
+  return new RosterProblem(
+    409,
+    "already-published",
+    `Revision ${revision} of this draft is already published${version ? ` as version ${version}` : ""}; nobody was mailed twice. Change the draft (reassign or rebuild) to publish a new version.`,
+    { version, rosterId },
+  );
 }

@@ -9,6 +9,7 @@ import { addLocalDays } from "@/lib/scheduling/time";
 import { rosterScenario } from "./edit";
 import { ROSTER_BUILD_JOB } from "./publish";
 import { guardKey } from "./scenario";
+import type { PublishReview } from "./review";
 import { postLabel, roomsOfScenario } from "./shift-events";
 
 export interface RosterView {
@@ -23,6 +24,12 @@ export interface RosterView {
   revision: number;
   publishedAt: string | null;
   supersedes: number | null;
+  /** For a published version: the draft revision it was made from. */
+  draftRevision: number | null;
+  /** For a published version: the review shown when it was published, the typed confirmation and the note. */
+  publishReview: PublishReview | null;
+  publishConfirmation: string | null;
+  publishNote: string | null;
   posts: { id: string; label: string; skills: string[] }[];
   guards: { id: number; name: string; skills: string[] }[];
   shifts: { id: number; guardId: number; guardName: string; start: string; end: string; segments: ShiftSegment[]; breaks: ShiftBreak[] }[];
@@ -54,6 +61,10 @@ export async function rosterView(db: Kysely<Database>, rosterId: number): Promis
     revision: roster.revision,
     publishedAt: roster.published_at?.toISOString() ?? null,
     supersedes: roster.supersedes,
+    draftRevision: roster.draft_revision,
+    publishReview: roster.publish_review,
+    publishConfirmation: roster.publish_confirmation,
+    publishNote: roster.publish_note,
     posts: scenario.posts.map((p) => ({ id: p.id, label: postLabel(p.id, rooms), skills: p.skills })),
     guards: guards.filter((g) => onStaff.has(guardKey(g.id))).map((g) => ({ id: g.id, name: g.name, skills: g.skills })),
     shifts: shifts.map((s) => ({
@@ -74,7 +85,9 @@ export async function rosterView(db: Kysely<Database>, rosterId: number): Promis
 export interface WeekOverview {
   startsOn: string;
   draft: { id: number; revision: number; createdAt: string; totals: RosterTotals | null; violations: number } | null;
-  published: { id: number; version: number; publishedAt: string | null; supersedes: number | null }[];
+  published: { id: number; version: number; publishedAt: string | null; supersedes: number | null; draftRevision: number | null; note: string | null }[];
+  /** The current published version, and whether the draft holds changes it does not have. */
+  status: { current: { id: number; version: number; publishedAt: string | null } | null; draftIsNewer: boolean };
   build: { id: number; status: string; progress: number; message: string } | null;
 }
 
@@ -89,8 +102,32 @@ export async function weekOverview(db: Kysely<Database>, siteId: number, startsO
     draft: draft
       ? { id: draft.id, revision: draft.revision, createdAt: draft.created_at.toISOString(), totals: draft.totals, violations: draft.violations.length }
       : null,
-    published: published.map((p) => ({ id: p.id, version: p.version, publishedAt: p.published_at?.toISOString() ?? null, supersedes: p.supersedes })),
+    published: published.map((p) => ({
+      id: p.id,
+      version: p.version,
+      publishedAt: p.published_at?.toISOString() ?? null,
+      supersedes: p.supersedes,
+      draftRevision: p.draft_revision,
+      note: p.publish_note,
+    })),
+    status: weekStatus(draft, published),
     build: build ? { id: build.id, status: build.status, progress: build.progress, message: build.message } : null,
   };
 }
 
+
+/**
+ * The week's current version (the newest published) and whether the draft is newer: it is when it
+ * exists and the current version was not made from its present revision.
+ */
+export function weekStatus(
+  draft: { revision: number } | null,
+  published: readonly { id: number; version: number; published_at: Date | null; draft_revision: number | null; revision: number }[],
+): WeekOverview["status"] {
+  const newest = published.reduce<(typeof published)[number] | null>((best, p) => (best === null || p.version > best.version ? p : best), null);
+  return {
+    current: newest ? { id: newest.id, version: newest.version, publishedAt: newest.published_at?.toISOString() ?? null } : null,
+    // Versions from before draft revisions were recorded carry the revision they copied.
+    draftIsNewer: draft !== null && (newest === null || (newest.draft_revision ?? newest.revision) !== draft.revision),
+  };
+}

@@ -143,18 +143,40 @@ describe("operations builds and publishes a week; the guard sees it", () => {
       // The engine needs a few seconds for the demo week; the page polls the job.
       await shown(page.getByText("Building the roster: done"), 120_000);
       const revision = await db.selectFrom("rosters").select("revision").where("starts_on", "=", WEEK).where("status", "=", "draft").executeTakeFirstOrThrow();
-      await shown(page.getByTestId("roster-status").getByText(`Draft (revision ${revision.revision})`, { exact: true }), 30_000);
+      await shown(page.getByTestId("roster-status").getByText(`Showing the draft (revision ${revision.revision})`, { exact: true }), 30_000);
+      await shown(page.getByTestId("draft-state").getByText(new RegExp(`revision ${revision.revision}\\)`)));
       await shown(page.getByTestId("violations").getByText("None: every shift keeps every rule."));
       await shown(page.getByTestId("roster-grid"));
       await page.getByRole("button", { name: "Publish", exact: true }).click();
       await shown(page.getByText(`Published version ${expectedVersion}; e-mailing every guard on it.`), 30_000);
       await shown(page.getByRole("button", { name: `Version ${expectedVersion} (current)` }), 30_000);
+      // The header says which version counts now, and that the draft holds nothing newer.
+      await shown(page.getByTestId("published-version").getByText(new RegExp(`^Published version ${expectedVersion} on `)), 30_000);
+      await shown(page.getByTestId("draft-state").getByText(`The draft (revision ${revision.revision}) is what version ${expectedVersion} holds.`, { exact: true }));
+      await expect(page.getByRole("button", { name: "Publish", exact: true }).isDisabled()).resolves.toBe(true);
+      // The roster list holds the week once, its draft and versions beneath it.
+      await page.reload();
+      const listed = page.getByTestId(`roster-week-${WEEK}`);
+      await shown(listed);
+      await expect(page.locator(`[data-testid="roster-week-${WEEK}"]`).count()).resolves.toBe(1);
+      await shown(listed.getByText(`version ${expectedVersion} is current`));
+      await shown(listed.getByRole("link", { name: `Version ${expectedVersion}`, exact: true }));
+      await shown(listed.getByRole("link", { name: `Draft, revision ${revision.revision}`, exact: true }));
     } finally {
       await context.close();
     }
     const published = await db.selectFrom("rosters").selectAll().where("starts_on", "=", WEEK).where("status", "=", "published").where("version", "=", expectedVersion).executeTakeFirstOrThrow();
     expect(published.violations).toEqual([]);
     publishedId = published.id;
+    // The same draft revision again through the API: 409 naming the version, nothing written.
+    const draft = await db.selectFrom("rosters").select(["id", "revision"]).where("starts_on", "=", WEEK).where("status", "=", "draft").executeTakeFirstOrThrow();
+    const again = await operations.request(`/api/rosters/${draft.id}/publish`, { method: "POST", json: { revision: draft.revision } });
+    expect(again.status).toBe(409);
+    const error = await errorOf(again);
+    expect(error.code).toBe("already-published");
+    expect(error.message).toContain(`version ${expectedVersion}`);
+    const versions = await db.selectFrom("rosters").select("id").where("starts_on", "=", WEEK).where("status", "=", "published").where("version", ">", expectedVersion).execute();
+    expect(versions).toEqual([]);
   });
 
   it("the server's job worker e-mails the guards", async () => {

@@ -204,8 +204,14 @@ describe("building, publishing and mailing a week", () => {
     }
   });
 
-  it("publishes again as version 2, superseding version 1, which stays exactly as it was", async () => {
+  it("publishes a rebuilt draft as version 2, superseding version 1, which stays exactly as it was", async () => {
+    const published = await db.selectFrom("rosters").select(["revision"]).where("id", "=", draftId).executeTakeFirstOrThrow();
+    // The revision version 1 was made from is published once; a rebuild makes a new revision.
+    await expectRefusal(publishDraft(db, { rosterId: draftId, revision: published.revision, userId: null }), 409, "already-published");
+    await enqueueJob(db, { kind: ROSTER_BUILD_JOB, payload: { siteId, startsOn: WEEK, userId: null } });
+    expect(await runNextJob(db, rosterJobHandlers)).toMatchObject({ kind: ROSTER_BUILD_JOB, status: "done" });
     const draft = await db.selectFrom("rosters").select(["revision"]).where("id", "=", draftId).executeTakeFirstOrThrow();
+    expect(draft.revision).toBe(published.revision + 1);
     const publication = await publishDraft(db, { rosterId: draftId, revision: draft.revision, userId: null });
     expect(publication.roster).toMatchObject({ version: 2, supersedes: version1Id });
     expect(publication.supersedes).toEqual({ id: version1Id, version: 1 });

@@ -1,7 +1,8 @@
 import type { Metadata } from "next";
 import { db } from "@/db";
 import type { Weekday } from "@/db/schema";
-import { timeOffOfSite } from "@/db/queries/rosters";
+import { rostersOfSite, timeOffOfSite } from "@/db/queries/rosters";
+import { rosterWeeks } from "@/lib/rosters/weeks";
 import { requirePageUser } from "@/lib/auth/session";
 import { addLocalDays, weekdayIndex } from "@/lib/scheduling/time";
 import { isMonday } from "@/lib/rosters/scenario";
@@ -41,26 +42,20 @@ export default async function StaffingPage({ searchParams }: { searchParams: Pro
   await requirePageUser("staffing:view");
   const site = await mainSite();
   if (!site) return <h1>Staffing</h1>;
-  const asked = (await searchParams).week;
+  const params = await searchParams;
+  const asked = params.week;
   const week = typeof asked === "string" && isMonday(asked) ? asked : comingMonday(site.time_zone, siteDay(site).date);
+  const askedRoster = typeof params.roster === "string" && /^\d{1,9}$/.test(params.roster) ? Number(params.roster) : null;
   const [capacity, rosters, timeOff] = await Promise.all([
     db
       .selectFrom("guards")
       .select((eb) => [eb.fn.countAll<string>().as("guards"), eb.fn.sum<number>("contract_hours").as("hours")])
       .where("site_id", "=", site.id)
       .executeTakeFirstOrThrow(),
-    db
-      .selectFrom("rosters")
-      .leftJoin("shifts", "shifts.roster_id", "rosters.id")
-      .select((eb) => ["rosters.id", "rosters.starts_on", "rosters.days", "rosters.status", "rosters.version", "rosters.published_at", eb.fn.count<string>("shifts.id").as("shifts")])
-      .where("rosters.site_id", "=", site.id)
-      .groupBy("rosters.id")
-      .orderBy("rosters.starts_on", "desc")
-      .orderBy("rosters.status")
-      .orderBy("rosters.version", "desc")
-      .execute(),
+    rostersOfSite(db, site.id),
     timeOffOfSite(db, site.id),
   ]);
+  const weeks = rosterWeeks(rosters);
   const weekly = site.opening_hours.weekly;
   const openHours = WEEK.reduce((sum, { day }) => sum + spanHours(weekly[day]), 0);
   const exceptions = Object.entries(site.opening_hours.dates ?? {}).sort(([a], [b]) => a.localeCompare(b));
@@ -71,7 +66,7 @@ export default async function StaffingPage({ searchParams }: { searchParams: Pro
         <h1>Staffing</h1>
         <p className="text-stone-700">Opening hours decide how many hours each post is staffed; contracts decide who can staff them.</p>
       </div>
-      <RosterWorkbench key={week} initialWeek={week} />
+      <RosterWorkbench key={`${week}-${askedRoster ?? ""}`} initialWeek={week} initialRosterId={askedRoster} />
       <section aria-labelledby="time-off" className="card">
         <h2 id="time-off">Time off</h2>
         <p className="text-sm text-stone-700">Approved time off is unavailability in the next roster build; rebuild a week after approving.</p>
@@ -140,35 +135,55 @@ export default async function StaffingPage({ searchParams }: { searchParams: Pro
       </div>
       <section aria-labelledby="rosters" className="card">
         <h2 id="rosters">Rosters</h2>
-        {rosters.length === 0 ? (
+        {weeks.length === 0 ? (
           <p className="mt-2">No rosters yet.</p>
         ) : (
           <div className="overflow-x-auto">
-            <table className="data-table mt-2">
+            <table className="data-table mt-2" data-testid="roster-list">
+              <caption className="sr-only">One row per week, its draft and published versions beneath it</caption>
               <thead>
                 <tr>
                   <th scope="col">Week of</th>
-                  <th scope="col">Days</th>
-                  <th scope="col">Status</th>
                   <th scope="col">Version</th>
                   <th scope="col">Shifts</th>
                   <th scope="col">Published</th>
+                  <th scope="col">Note</th>
                 </tr>
               </thead>
-              <tbody>
-                {rosters.map((roster) => (
-                  <tr key={roster.id}>
-                    <td>
-                      <a href={`/staffing?week=${roster.starts_on}`}>{calendarDate(roster.starts_on)}</a>
-                    </td>
-                    <td>{roster.days}</td>
-                    <td>{roster.status}</td>
-                    <td>{roster.version}</td>
-                    <td>{Number(roster.shifts)}</td>
-                    <td>{roster.published_at ? siteTime(roster.published_at, site.time_zone) : "—"}</td>
+              {weeks.map((w) => (
+                <tbody key={w.startsOn} data-testid={`roster-week-${w.startsOn}`}>
+                  <tr className="bg-stone-100">
+                    <th scope="rowgroup" colSpan={5} className="text-left">
+                      <a href={`/staffing?week=${w.startsOn}`}>Week of {calendarDate(w.startsOn)}</a>
+                      <span className="ml-2 font-normal text-stone-700">
+                        {w.current ? `version ${w.current.version} is current` : "not published yet"}
+                        {w.draftIsNewer && w.current ? "; a newer draft is not published" : ""}
+                      </span>
+                    </th>
                   </tr>
-                ))}
-              </tbody>
+                  {w.rows.map((roster) => (
+                    <tr key={roster.id}>
+                      <td className="pl-6">
+                        <a href={`/staffing?week=${w.startsOn}&roster=${roster.id}`}>
+                          {roster.status === "draft" ? `Draft, revision ${roster.revision}` : `Version ${roster.version}`}
+                        </a>
+                      </td>
+                      <td>
+                        {roster.status === "draft"
+                          ? w.draftIsNewer
+                            ? "draft, not published"
+                            : "draft, same as the current version"
+                          : roster.id === w.current?.id
+                            ? "current"
+                            : "superseded"}
+                      </td>
+                      <td>{Number(roster.shifts)}</td>
+                      <td>{roster.published_at ? siteTime(roster.published_at, site.time_zone) : "—"}</td>
+                      <td className="max-w-xs text-sm">{roster.publish_note ?? ""}</td>
+                    </tr>
+                  ))}
+                </tbody>
+              ))}
             </table>
           </div>
         )}

@@ -44,3 +44,29 @@ export async function publishRosterDirectly(
     return id;
   });
 }
+
+/**
+ * Runs one queued job by its id, the way the worker would (claimed, handled, finished), so a test
+ * runs exactly its own job even while other test files run theirs from the same queue.
+ */
+export async function runQueuedJob(
+  db: Kysely<Database>,
+  jobId: number,
+  handler: (job: { id: number; payload: unknown; result: unknown }) => Promise<unknown>,
+): Promise<unknown> {
+  const job = await db
+    .updateTable("jobs")
+    .set({ status: "running", locked_at: sql<Date>`now()`, attempts: sql<number>`attempts + 1` })
+    .where("id", "=", jobId)
+    .where("status", "=", "queued")
+    .returning(["id", "payload", "result"])
+    .executeTakeFirst();
+  if (!job) throw new Error(`job ${jobId} is not queued (another worker took it?)`);
+  const result = await handler(job);
+  await db
+    .updateTable("jobs")
+    .set({ status: "done", progress: 1, result: JSON.stringify(result ?? null), locked_at: null, finished_at: sql<Date>`now()` })
+    .where("id", "=", jobId)
+    .execute();
+  return result;
+}

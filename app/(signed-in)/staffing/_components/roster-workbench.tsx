@@ -4,6 +4,8 @@
 import { useMutation, useQuery, useQueryClient } from "@tanstack/react-query";
 import { useRouter } from "next/navigation";
 import { useEffect, useState } from "react";
+import { TZDate } from "@date-fns/tz";
+import { format } from "date-fns";
 import { apiFetch } from "@/lib/api/client";
 import { isMonday } from "@/lib/rosters/scenario";
 import type { JobState, RosterView, WeekOverview } from "./roster-types";
@@ -26,12 +28,12 @@ function useJob(jobId: number | null) {
   });
 }
 
-export function RosterWorkbench({ initialWeek }: { initialWeek: string }) {
+export function RosterWorkbench({ initialWeek, initialRosterId = null }: { initialWeek: string; initialRosterId?: number | null }) {
   const router = useRouter();
   const queryClient = useQueryClient();
   const [week, setWeek] = useState(initialWeek);
   const [weekInput, setWeekInput] = useState(initialWeek);
-  const [shownRosterId, setShownRosterId] = useState<number | null>(null);
+  const [shownRosterId, setShownRosterId] = useState<number | null>(initialRosterId);
   const [buildJobId, setBuildJobId] = useState<number | null>(null);
   const [mailJobId, setMailJobId] = useState<number | null>(null);
   const [interactive, setInteractive] = useState(false);
@@ -48,7 +50,9 @@ export function RosterWorkbench({ initialWeek }: { initialWeek: string }) {
   const buildJob = useJob(activeBuildId);
   const mailJob = useJob(mailJobId);
 
-  const rosterId = shownRosterId ?? overview.data?.draft?.id ?? overview.data?.published[0]?.id ?? null;
+  // Only a roster of the chosen week is shown (an address may name another week's roster).
+  const ofWeek = (id: number | null) => id !== null && (overview.data?.draft?.id === id || (overview.data?.published ?? []).some((p) => p.id === id));
+  const rosterId = (ofWeek(shownRosterId) ? shownRosterId : null) ?? overview.data?.draft?.id ?? overview.data?.published[0]?.id ?? null;
   const roster = useQuery({
     queryKey: ["roster", rosterId],
     queryFn: () => apiFetch<{ roster: RosterView }>(`/api/rosters/${rosterId}`).then((r) => r.roster),
@@ -97,6 +101,8 @@ export function RosterWorkbench({ initialWeek }: { initialWeek: string }) {
   const draft = overview.data?.draft ?? null;
   // While a build runs the draft on screen is about to be replaced: show it again once rebuilt.
   const shown = building ? null : (roster.data ?? null);
+  // The draft on screen is already a version: publishing it again would change nothing.
+  const draftPublished = shown?.status === "draft" && overview.data?.draft?.revision === shown.revision && overview.data.status.draftIsNewer === false;
 
   return (
     <section aria-labelledby="roster-heading" className="card space-y-4">
@@ -138,23 +144,28 @@ export function RosterWorkbench({ initialWeek }: { initialWeek: string }) {
 
       {overview.error && <p role="alert" className="text-alert-700">{overview.error.message}</p>}
       {roster.error && <p role="alert" className="text-alert-700">{roster.error.message}</p>}
+      {overview.data && <WeekStatus overview={overview.data} timeZone={shown?.timeZone ?? null} />}
       {shown && (
         <>
           <div className="flex flex-wrap items-center gap-3">
             <p className="font-semibold" data-testid="roster-status">
-              {shown.status === "draft" ? `Draft (revision ${shown.revision})` : `Published version ${shown.version}`}
+              {shown.status === "draft" ? `Showing the draft (revision ${shown.revision})` : `Showing published version ${shown.version}`}
+              {shown.status === "published" && shown.id !== overview.data?.status.current?.id ? " (superseded)" : ""}
             </p>
             {shown.status === "draft" && (
               <button
                 type="button"
                 className="button"
-                disabled={!interactive || publish.isPending || roster.isFetching || shown.violations.length > 0}
+                disabled={!interactive || publish.isPending || roster.isFetching || shown.violations.length > 0 || draftPublished}
                 onClick={() => publish.mutate(shown)}
               >
                 Publish
               </button>
             )}
           </div>
+          {shown.status === "draft" && draftPublished && (
+            <p className="text-sm text-stone-700">This revision is published; reassign or rebuild to make a new version.</p>
+          )}
           {publish.error && <p role="alert" className="text-alert-700">{publish.error.message}</p>}
           {publish.data && (
             <p role="status" className="text-ink-800">
@@ -182,6 +193,29 @@ function JobProgress({ label, job }: { label: string; job: JobState }) {
       </p>
       <progress className="w-full" max={100} value={percent} aria-labelledby={`job-${job.id}-label`} />
       <p role="status" className={job.status === "failed" ? "text-sm text-alert-700" : "text-sm text-stone-700"}>{job.message}</p>
+    </div>
+  );
+}
+
+/** The week's state in one line: the version guards go by, and whether the draft holds more. */
+function WeekStatus({ overview, timeZone }: { overview: WeekOverview; timeZone: string | null }) {
+  const { current, draftIsNewer } = overview.status;
+  if (!current && !overview.draft) return null;
+  const when = current?.publishedAt && timeZone ? ` on ${format(new TZDate(new Date(current.publishedAt), timeZone), "EEE d MMM, HH:mm")}` : "";
+  return (
+    <div className="rounded-md border border-stone-300 p-3" data-testid="week-status">
+      <p className="font-semibold" data-testid="published-version">
+        {current ? `Published version ${current.version}${when}` : "Not published yet"}
+      </p>
+      {overview.draft && (
+        <p className={draftIsNewer ? "text-sm font-semibold text-brass-700" : "text-sm text-stone-700"} data-testid="draft-state">
+          {draftIsNewer
+            ? current
+              ? `A newer draft (revision ${overview.draft.revision}) is not published yet; guards still go by version ${current.version}.`
+              : `Draft (revision ${overview.draft.revision}): guards see nothing of this week until it is published.`
+            : `The draft (revision ${overview.draft.revision}) is what version ${current!.version} holds.`}
+        </p>
+      )}
     </div>
   );
 }
