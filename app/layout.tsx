@@ -1,4 +1,5 @@
 import type { Metadata, Viewport } from "next";
+import { connection } from "next/server";
 import "./globals.css";
 import { sightwardSans } from "./fonts";
 import { QueryProvider } from "@/components/query-provider";
@@ -15,7 +16,9 @@ export const viewport: Viewport = {
 };
 
 // The root layout touches no database, so a PostgreSQL outage still renders our error page.
-export default function RootLayout({ children }: { children: React.ReactNode }) {
+// Every page renders per request: Next.js puts the proxy's CSP nonce on its scripts only then.
+export default async function RootLayout({ children }: { children: React.ReactNode }) {
+  await connection();
   return (
     <html lang="en" className={sightwardSans.variable}>
       <body>

@@ -1,19 +1,16 @@
 import type { Metadata } from "next";
 import { redirect } from "next/navigation";
 import { sessionUser } from "@/lib/auth/session";
+import { safeCallbackPath } from "@/lib/auth/callback-url";
 import { SignInForm } from "./_components/sign-in-form";
 
 export const metadata: Metadata = { title: "Sign in" };
 
-// A callbackUrl from the address bar is only followed to our own pages, never to another site.
-function safeCallback(value: string | string[] | undefined): string {
-  const url = Array.isArray(value) ? value[0] : value;
-  return url && url.startsWith("/") && !url.startsWith("//") ? url : "/";
-}
 
 export default async function SignInPage({ searchParams }: { searchParams: Promise<Record<string, string | string[] | undefined>> }) {
   const params = await searchParams;
-  const callbackUrl = safeCallback(params.callbackUrl);
+  // A callbackUrl from the address bar is only followed to our own pages, never to another site.
+  const callbackUrl = safeCallbackPath(params.callbackUrl);
   if (await sessionUser()) redirect(callbackUrl);
   return (
     <main id="main" className="flex min-h-screen items-center justify-center bg-ink-800 px-4 py-section">

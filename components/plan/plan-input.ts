@@ -1,6 +1,7 @@
 // The bodies of the room and post-plan API, as zod schemas: the route handlers parse with them and
 // the room page builds its requests from the same types, so the two cannot disagree.
 import { z } from "zod";
+import { bodyId, counter, idParam } from "@/lib/api/ids";
 
 const coordinate = z.number({ error: "coordinates must be numbers (metres)" }).refine(Number.isFinite, "coordinates must be finite numbers");
 export const pointSchema = z.tuple([coordinate, coordinate], { error: "a point is [x, y] in metres" });
@@ -11,16 +12,16 @@ export const roomWallsSchema = z.object({
   name: z.string().trim().min(1, "the room needs a name").max(120, "keep the name under 120 characters").optional(),
   outline: ringSchema,
   obstacles: z.array(ringSchema).max(2_000, "a room may have at most 2,000 obstacles"),
-  version: z.number({ error: "version is the room version you edited (a whole number)" }).int().positive(),
+  version: counter("version"),
 });
 export type RoomWalls = z.infer<typeof roomWallsSchema>;
 
 /** POST /api/rooms/[roomId]/post-plans: compute and store a proposed plan. */
 export const postPlanRequestSchema = z.object({
   /** The exhibition the plan is for; its room settings give the default sight range and double cover. */
-  exhibitionId: z.number().int().positive().nullable().optional(),
+  exhibitionId: bodyId("exhibitionId").nullable().optional(),
   /** The room version the person was looking at; 409 when the walls changed since. */
-  roomVersion: z.number().int().positive(),
+  roomVersion: counter("roomVersion"),
   method: z.enum(["fewest", "guaranteed"]).optional(),
   /** Metres a guard watches well; null = unlimited; absent = the exhibition room's setting. */
   sightRange: z.number().positive("sight range must be more than 0 metres").max(1_000).nullable().optional(),
@@ -39,7 +40,5 @@ export interface FewestPreview {
   uncovered?: [number, number][][][] | [number, number][][];
 }
 
-const positiveId = (name: string) =>
-  z.coerce.number({ error: `${name} must be a number` }).int(`${name} must be a whole number`).positive(`${name} must be positive`);
-export const roomIdParams = z.object({ roomId: positiveId("roomId") });
-export const planIdParams = z.object({ planId: positiveId("planId") });
+export const roomIdParams = z.object({ roomId: idParam("roomId") });
+export const planIdParams = z.object({ planId: idParam("planId") });

@@ -1,7 +1,7 @@
 // Seeds the demo museum. Idempotent: every row is found by its natural key (site name; floor,
 // room and exhibition name within their parent; e-mail for users and guards) and inserted only
 // when missing, so seeding twice changes nothing and never overwrites an edit.
-import bcrypt from "bcryptjs";
+import { SEED_PASSWORD_COST, hashPassword } from "../../lib/auth/passwords";
 import { sql, type Kysely, type Transaction } from "kysely";
 import { toJson, type Database, type Role } from "../schema";
 import { DEMO_ACCOUNTS, DEMO_PASSWORD } from "./accounts";
@@ -29,7 +29,7 @@ async function findOrInsert<T>(find: () => Promise<T | undefined>, insert: () =>
   return found !== undefined ? [found, false] : [await insert(), true];
 }
 
-async function seedIn(trx: Transaction<Database>, passwordHash: string): Promise<SeedReport> {
+async function seedIn(trx: Transaction<Database>, passwordHash: () => Promise<string>): Promise<SeedReport> {
   const report: SeedReport = { users: 0, sites: 0, floors: 0, rooms: 0, exhibitions: 0, exhibitionRooms: 0, guards: 0 };
 
   const [site, siteAdded] = await findOrInsert(
@@ -104,9 +104,12 @@ async function seedIn(trx: Transaction<Database>, passwordHash: string): Promise
   const people = new Map<string, { name: string; role: Role }>();
   for (const account of DEMO_ACCOUNTS) people.set(account.email, { name: account.name, role: account.role });
   for (const g of GUARDS) if (!people.has(g.email)) people.set(g.email, { name: g.name, role: "guard" });
-  const addedUsers = await trx
+  const known = new Set((await trx.selectFrom("users").select("email").execute()).map((row) => row.email));
+  const newPeople = [...people].filter(([email]) => !known.has(email));
+  const hashes = await Promise.all(newPeople.map(() => passwordHash()));
+  const addedUsers = newPeople.length === 0 ? [] : await trx
     .insertInto("users")
-    .values([...people].map(([email, person]) => ({ email, name: person.name, role: person.role, password_hash: passwordHash })))
+    .values(newPeople.map(([email, person], i) => ({ email, name: person.name, role: person.role, password_hash: hashes[i] })))
     .onConflict((oc) => oc.column("email").doNothing())
     .returning("id")
     .execute();
@@ -155,8 +158,9 @@ export async function seedDemoMuseum(
   db: Kysely<Database>,
   options: { ifEmpty?: boolean; postPlans?: boolean } = {},
 ): Promise<SeedReport | null> {
-  // One hash for every seeded account keeps the seed fast (bcrypt cost 10: ~70 ms per hash).
-  const passwordHash = await bcrypt.hash(DEMO_PASSWORD, 10);
+  // Each account its own hash and salt; cost SEED_PASSWORD_COST (lib/auth/passwords.ts) keeps the
+  // seed quick, and a seeded hash is upgraded to the full cost at the account's first sign-in.
+  const passwordHash = () => hashPassword(DEMO_PASSWORD, SEED_PASSWORD_COST);
   const report = await db.transaction().execute(async (trx) => {
     await sql`select pg_advisory_xact_lock(hashtext('sightward demo seed'))`.execute(trx);
     if (options.ifEmpty) {

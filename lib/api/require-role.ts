@@ -1,19 +1,19 @@
 import "server-only";
 import type { NextRequest } from "next/server";
-import { getToken } from "next-auth/jwt";
 import { db } from "@/db";
 import { ApiProblem } from "@/lib/api/problem";
 import { can, isRole, type Permission } from "@/lib/auth/roles";
 import type { SignedInUser } from "@/lib/auth/session";
+import { sessionToken } from "@/lib/auth/token";
 
 /**
  * The caller of a route handler, checked on the server: 401 when signed out, 403 when the role
  * (as the database has it now, not as the token remembers it) lacks the permission.
  */
 export async function requireRole(request: NextRequest, permission: Permission): Promise<SignedInUser> {
-  const token = await getToken({ req: request, secret: process.env.NEXTAUTH_SECRET });
+  const token = await sessionToken(request);
   if (!token || typeof token.uid !== "number") {
-    throw new ApiProblem(401, "signed-out", "Sign in first: this needs a signed-in user.");
+    throw new ApiProblem(401, "signed-out", "Sign in first: this needs a signed-in user (sessions end after an hour without use or 12 hours after sign-in).");
   }
   const user = await db
     .selectFrom("users")

@@ -1,17 +1,23 @@
 import "server-only";
 import type { NextRequest } from "next/server";
 import { ApiProblem, apiError, isDatabaseUnavailable } from "@/lib/api/problem";
+import { refuseForeignOrigin } from "@/lib/api/origin";
+import { renewSession } from "@/lib/auth/token";
 
 type Handler<Ctx> = (request: NextRequest, context: Ctx) => Promise<Response>;
 
 /**
- * Wraps a route handler: an ApiProblem becomes its JSON answer, PostgreSQL being down becomes 503,
- * anything else becomes a 500 with no stack trace (the trace goes to the server log only).
+ * Wraps a route handler: a state-changing call from another site's page is refused (403) before
+ * the handler runs; an ApiProblem becomes its JSON answer, PostgreSQL being down becomes 503,
+ * anything else becomes a 500 with no stack trace (the trace goes to the server log only). A
+ * working session's idle expiry is renewed on the answer.
  */
 export function route<Ctx = { params: Promise<Record<string, string>> }>(handler: Handler<Ctx>): Handler<Ctx> {
   return async (request, context) => {
+    let response: Response;
     try {
-      return await handler(request, context);
+      refuseForeignOrigin(request);
+      response = await handler(request, context);
     } catch (error) {
       if (error instanceof ApiProblem) return error.toResponse();
       if (isDatabaseUnavailable(error)) {
@@ -20,5 +26,7 @@ export function route<Ctx = { params: Promise<Record<string, string>> }>(handler
       console.error(`[api] ${request.method} ${request.nextUrl.pathname} failed:`, error);
       return apiError(500, "internal", "Something went wrong on the server; it has been logged.");
     }
+    if (response.ok) await renewSession(request, response).catch(() => undefined);
+    return response;
   };
 }

@@ -21,5 +21,7 @@ declare module "next-auth/jwt" {
   interface JWT {
     uid?: number;
     role?: Role;
+    /** When the password was given (seconds since the epoch); lib/auth/session-policy.ts. */
+    signedInAt?: number;
   }
 }

@@ -1,18 +1,18 @@
 import "server-only";
 import type { NextAuthOptions } from "next-auth";
 import CredentialsProvider from "next-auth/providers/credentials";
-import bcrypt from "bcryptjs";
 import { z } from "zod";
 import { db } from "@/db";
 import { isRole } from "@/lib/auth/roles";
+import { decoyHash, hashPassword, needsRehash, verifyPassword } from "@/lib/auth/passwords";
+import { safeRedirect } from "@/lib/auth/callback-url";
+import { SESSION_IDLE_SECONDS, SESSION_RENEW_SECONDS, nowSeconds, withinAbsoluteLimit } from "@/lib/auth/session-policy";
 
 const credentialsSchema = z.object({
   email: z.string().trim().toLowerCase().email().max(254),
   password: z.string().min(1).max(200),
 });
 
-// Compared against when the e-mail is unknown, so a wrong address costs as long as a wrong password.
-const UNKNOWN_USER_HASH = "$2b$10$/s4UyAKEtnB7in2d0fZSbeYkc4Df5gC6l0cwVge9/mZQ.WarKycya";
 
 /** Checks an e-mail and password against users.password_hash; null when they do not match. */
 export async function verifyCredentials(email: string, password: string) {
@@ -21,15 +21,22 @@ export async function verifyCredentials(email: string, password: string) {
     .select(["id", "email", "name", "role", "password_hash"])
     .where("email", "=", email)
     .executeTakeFirst();
-  const matches = await bcrypt.compare(password, user?.password_hash ?? UNKNOWN_USER_HASH);
+  // An unknown address is compared against a decoy hash, so it costs as long as a wrong password.
+  const matches = await verifyPassword(password, user?.password_hash ?? (await decoyHash()));
   if (!user || !matches || !isRole(user.role)) return null;
+  if (needsRehash(user.password_hash)) {
+    // A seeded (cheaper) hash becomes a full-cost one with a fresh salt at its first sign-in.
+    await db.updateTable("users").set({ password_hash: await hashPassword(password) }).where("id", "=", user.id).execute();
+  }
   return { id: String(user.id), email: user.email, name: user.name, role: user.role };
 }
 
 export const authOptions: NextAuthOptions = {
   secret: process.env.NEXTAUTH_SECRET,
   // A signed JWT in a cookie: no session table, and the proxy can read it without the database.
-  session: { strategy: "jwt", maxAge: 12 * 60 * 60 },
+  // maxAge is the idle expiry: the proxy and route() renew the cookie while the person works, and
+  // the jwt callback ends every session at the absolute limit (lib/auth/session-policy.ts).
+  session: { strategy: "jwt", maxAge: SESSION_IDLE_SECONDS, updateAge: SESSION_RENEW_SECONDS },
   pages: { signIn: "/sign-in", error: "/sign-in" },
   providers: [
     CredentialsProvider({
@@ -50,8 +57,15 @@ export const authOptions: NextAuthOptions = {
       if (user) {
         token.uid = Number(user.id);
         token.role = user.role;
+        token.signedInAt = nowSeconds();
+        return token;
       }
+      // Past the absolute limit the token keeps no person: the session reads as signed out.
+      if (!withinAbsoluteLimit(token)) return { signedInAt: token.signedInAt };
       return token;
+    },
+    async redirect({ url, baseUrl }) {
+      return safeRedirect(url, baseUrl);
     },
     async session({ session, token }) {
       if (token.uid != null && token.role) {

@@ -1,6 +1,11 @@
 // The roster API's input, one zod schema each: they type the route handlers and drive the forms.
 import { z } from "zod";
 import { isMonday } from "./scenario";
+import { bodyId, counter, idParam } from "@/lib/api/ids";
+
+/** Dates the roster side accepts: a museum plans within this century, never year 0 or 9999. */
+export const FIRST_YEAR = 2000;
+export const LAST_YEAR = 2100;
 
 const isoDate = z
   .string()
@@ -9,11 +14,13 @@ const isoDate = z
   .refine((date) => {
     const day = new Date(`${date}T00:00:00Z`);
     return !Number.isNaN(day.getTime()) && day.toISOString().slice(0, 10) === date;
-  }, "no such day in the calendar");
+  }, "no such day in the calendar")
+  .refine((date) => {
+    const year = Number(date.slice(0, 4));
+    return year >= FIRST_YEAR && year <= LAST_YEAR;
+  }, `pick a date between ${FIRST_YEAR} and ${LAST_YEAR}`);
 const monday = isoDate.refine(isMonday, "a roster week starts on a Monday; pick a Monday");
-const positiveId = (what: string) => z.coerce.number({ error: `${what} must be a number` }).int(`${what} must be a whole number`).positive(`${what} must be positive`);
-
-export const rosterIdSchema = z.object({ id: positiveId("id") });
+export const rosterIdSchema = z.object({ id: idParam("id") });
 
 export const weekQuerySchema = z.object({ startsOn: monday });
 
@@ -21,18 +28,18 @@ export const buildRequestSchema = z.object({ startsOn: monday });
 export type BuildRequestBody = z.infer<typeof buildRequestSchema>;
 
 export const publishRequestSchema = z.object({
-  revision: z.number({ error: "revision must be the draft revision you loaded" }).int().positive(),
+  revision: counter("revision"),
 });
 
 export const reassignRequestSchema = z.object({
-  revision: z.number({ error: "revision must be the draft revision you loaded" }).int().positive(),
+  revision: counter("revision"),
   from: z.object({
     /** Whose segment; null for an unfilled post-slot. */
-    guardId: z.number().int().positive().nullable(),
+    guardId: bodyId("guardId").nullable(),
     post: z.string().min(1, "post is required").max(100),
     start: z.iso.datetime({ offset: true, error: "start must be an ISO date-time, e.g. 2027-03-23T09:00:00.000Z" }),
   }),
-  toGuardId: z.number({ error: "toGuardId must be a guard id" }).int().positive(),
+  toGuardId: bodyId("toGuardId"),
 });
 export type ReassignRequestBody = z.infer<typeof reassignRequestSchema>;
 

@@ -41,7 +41,7 @@ async function requestAs(role: Role | null, init: { body?: string; url?: string;
     headers.set("cookie", `next-auth.session-token=${init.token}`);
   } else if (role) {
     const user = userOf[role]!;
-    const token = await encode({ token: { uid: user.id, role, email: user.email, name: user.name }, secret: process.env.NEXTAUTH_SECRET! });
+    const token = await encode({ token: { uid: user.id, role, email: user.email, name: user.name, signedInAt: Math.floor(Date.now() / 1000) }, secret: process.env.NEXTAUTH_SECRET! });
     headers.set("cookie", `next-auth.session-token=${token}`);
   }
   return new NextRequest(init.url ?? "http://127.0.0.1/api/test", { method: init.body ? "POST" : "GET", headers, body: init.body });
@@ -105,12 +105,12 @@ describe("requireRole against the real users table", () => {
 
   it("trusts the database over the token: a token claiming admin for a guard gets 403", async () => {
     const guard = userOf.guard!;
-    const token = await encode({ token: { uid: guard.id, role: "admin", email: guard.email }, secret: process.env.NEXTAUTH_SECRET! });
+    const token = await encode({ token: { uid: guard.id, role: "admin", email: guard.email, signedInAt: Math.floor(Date.now() / 1000) }, secret: process.env.NEXTAUTH_SECRET! });
     expect(await statusOf(requireRole(await requestAs(null, { token }), "users:manage"))).toBe(403);
   });
 
   it("answers 401 for a token of an account that no longer exists", async () => {
-    const token = await encode({ token: { uid: 2_000_000_000, role: "admin" }, secret: process.env.NEXTAUTH_SECRET! });
+    const token = await encode({ token: { uid: 2_000_000_000, role: "admin", signedInAt: Math.floor(Date.now() / 1000) }, secret: process.env.NEXTAUTH_SECRET! });
     expect(await statusOf(requireRole(await requestAs(null, { token }), "users:manage"))).toBe(401);
   });
 });

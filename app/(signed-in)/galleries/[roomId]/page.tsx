@@ -1,3 +1,4 @@
+import { idParam } from "@/lib/api/ids";
 import type { Metadata } from "next";
 import Link from "next/link";
 import { notFound } from "next/navigation";
@@ -15,8 +16,9 @@ export const dynamic = "force-dynamic";
 type Params = { params: Promise<{ roomId: string }> };
 
 async function load(roomIdText: string) {
-  const roomId = Number(roomIdText);
-  if (!Number.isInteger(roomId) || roomId <= 0) return null;
+  const parsed = idParam("roomId").safeParse(roomIdText);
+  if (!parsed.success) return null;
+  const roomId = parsed.data;
   return roomDetail(roomId, db);
 }
 

@@ -3,12 +3,12 @@ import { z } from "zod";
 import { db } from "@/db";
 import { jobById } from "@/db/queries/jobs";
 import { ApiProblem } from "@/lib/api/problem";
-import { parseParams } from "@/lib/api/parse";
+import { idParam, parseParams } from "@/lib/api/parse";
 import { requireRole } from "@/lib/api/require-role";
 import { route } from "@/lib/api/route";
 
 type Context = { params: Promise<{ id: string }> };
-const jobIdSchema = z.object({ id: z.coerce.number({ error: "id must be a number" }).int("id must be a whole number").positive("id must be positive") });
+const jobIdSchema = z.object({ id: idParam("id") });
 
 /** GET /api/jobs/[id]: a background job's status and progress, for pages to poll (operations). */
 export const GET = route<Context>(async (request: NextRequest, context) => {

@@ -1,5 +1,5 @@
 import { NextResponse, type NextRequest } from "next/server";
-import { ApiProblem } from "@/lib/api/problem";
+import { ROOM_BODY_LIMIT, readJsonBody } from "@/lib/api/parse";
 import { requireRole } from "@/lib/api/require-role";
 import { route } from "@/lib/api/route";
 import { previewPostPlan } from "@/lib/guarding/fewest-preview";
@@ -11,12 +11,7 @@ import { previewPostPlan } from "@/lib/guarding/fewest-preview";
  */
 export const POST = route(async (request: NextRequest) => {
   await requireRole(request, "galleries:view");
-  let body: unknown;
-  try {
-    body = await request.json();
-  } catch {
-    throw new ApiProblem(400, "invalid-json", "The request body must be JSON: a GeoJSON Feature or Polygon.");
-  }
+  const body = await readJsonBody(request, { limit: ROOM_BODY_LIMIT });
   const answer = previewPostPlan(body);
   return NextResponse.json(answer.body, { status: answer.status });
 });

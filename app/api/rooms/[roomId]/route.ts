@@ -5,7 +5,7 @@ import { db } from "@/db";
 import { roomDetail, saveRoomWalls } from "@/db/queries/rooms";
 import { postPlansForRoom } from "@/db/queries/post-plans";
 import { ApiProblem } from "@/lib/api/problem";
-import { parseBody, parseParams } from "@/lib/api/parse";
+import { ROOM_BODY_LIMIT, parseBody, parseParams } from "@/lib/api/parse";
 import { requireRole } from "@/lib/api/require-role";
 import { route } from "@/lib/api/route";
 import { normaliseRoom, validateRoom } from "@/lib/geometry/room";
@@ -27,7 +27,7 @@ export const GET = route<Context>(async (request: NextRequest, context) => {
 export const PUT = route<Context>(async (request: NextRequest, context) => {
   await requireRole(request, "rooms:edit");
   const { roomId } = parseParams(await context.params, roomIdParams);
-  const body = await parseBody(request, roomWallsSchema);
+  const body = await parseBody(request, roomWallsSchema, { limit: ROOM_BODY_LIMIT });
   const problems = validateRoom({ outline: body.outline, obstacles: body.obstacles });
   if (problems.length > 0) {
     throw new ApiProblem(422, "invalid-room", `The room cannot be saved: ${problems[0].message}.`, { problems });

@@ -5,7 +5,7 @@ import { db } from "@/db";
 import { roomDetail } from "@/db/queries/rooms";
 import { computePostPlan, insertProposedPlan, postPlansForRoom } from "@/db/queries/post-plans";
 import { ApiProblem } from "@/lib/api/problem";
-import { parseBody, parseParams } from "@/lib/api/parse";
+import { ROOM_BODY_LIMIT, parseBody, parseParams } from "@/lib/api/parse";
 import { requireRole } from "@/lib/api/require-role";
 import { route } from "@/lib/api/route";
 import { postPlanRequestSchema, roomIdParams } from "@/components/plan/plan-input";
@@ -30,7 +30,7 @@ export const GET = route<Context>(async (request: NextRequest, context) => {
 export const POST = route<Context>(async (request: NextRequest, context) => {
   await requireRole(request, "plans:approve");
   const { roomId } = parseParams(await context.params, roomIdParams);
-  const body = await parseBody(request, postPlanRequestSchema);
+  const body = await parseBody(request, postPlanRequestSchema, { limit: ROOM_BODY_LIMIT });
   const room = await roomDetail(roomId, db);
   if (!room) throw new ApiProblem(404, "not-found", `There is no room ${roomId}.`);
   if (body.roomVersion !== room.version) {
