@@ -83,6 +83,8 @@ export interface SitesTable {
   labour_rules: ColumnType<SiteLabourRules, string | undefined, string>;
   /** From address of the product's mail; null = the app's default (0006). */
   mail_sender: ColumnType<string | null, string | null | undefined, string | null>;
+  /** Order on the galleries page, smallest first (0070). */
+  position: ColumnType<number, number | undefined, number>;
 }
 
 /**
@@ -103,6 +105,8 @@ export interface FloorsTable {
   site_id: number;
   name: string;
   level: number;
+  /** Order on the galleries page, smallest first (0070). */
+  position: ColumnType<number, number | undefined, number>;
 }
 
 export interface RoomsTable {
@@ -116,6 +120,8 @@ export interface RoomsTable {
   /** Optimistic concurrency: bump on every edit, compare on update. */
   version: Generated<number>;
   updated_at: ColumnType<Date, Date | string | undefined, Date | string>;
+  /** Order on its floor, smallest first (0070). */
+  position: ColumnType<number, number | undefined, number>;
 }
 
 export interface ExhibitionsTable {
@@ -290,6 +296,24 @@ export interface ShiftsTable {
   breaks: ColumnType<ShiftBreak[], string | undefined, string>;
 }
 
+/** Every outline a room had, one row per version, written by a trigger on rooms (0070). */
+export interface RoomVersionsTable {
+  id: GeneratedAlways<number>;
+  room_id: number;
+  version: number;
+  outline: Json<Ring>;
+  obstacles: Json<Ring[]>;
+  /** n: corners of the outline and every obstacle. */
+  corners: number;
+  /** h: obstacles (holes). */
+  holes: number;
+  /** Floor area in m²: the outline's less its obstacles'. */
+  area: number;
+  /** Who saved it; null when unknown (seed, command line) or the account is gone. */
+  saved_by: number | null;
+  saved_at: Timestamp;
+}
+
 export interface Database {
   users: UsersTable;
   sites: SitesTable;
@@ -303,6 +327,7 @@ export interface Database {
   jobs: JobsTable;
   time_off: TimeOffTable;
   post_plans: PostPlansTable;
+  room_versions: RoomVersionsTable;
 }
 
 export type User = Selectable<UsersTable>;

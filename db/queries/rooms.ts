@@ -3,6 +3,7 @@
 import type { Kysely } from "kysely";
 import { db as appDb } from "../index";
 import { toJson, type Database, type OpeningHours } from "../schema";
+import { setSaver } from "./galleries";
 import type { Ring } from "../../lib/geometry/types";
 
 export interface RoomExhibition {
@@ -101,28 +102,34 @@ export type RoomSave =
 
 /**
  * Writes new walls only when the room is still at `expectedVersion` (one UPDATE ... WHERE version
- * = expected), bumping the version; otherwise writes nothing and says why.
+ * = expected), bumping the version; otherwise writes nothing and says why. The room_versions
+ * trigger keeps the new walls as a version by `savedBy`.
  */
 export async function saveRoomWalls(
   roomId: number,
   change: { name?: string; outline: Ring; obstacles: Ring[] },
   expectedVersion: number,
   db: Kysely<Database> = appDb,
+  savedBy: number | null = null,
 ): Promise<RoomSave> {
-  const updated = await db
-    .updateTable("rooms")
-    .set((eb) => ({
-      ...(change.name !== undefined ? { name: change.name } : {}),
-      outline: toJson(change.outline),
-      obstacles: toJson(change.obstacles),
-      version: eb("version", "+", 1),
-      updated_at: new Date(),
-    }))
-    .where("id", "=", roomId)
-    .where("version", "=", expectedVersion)
-    .returning(["version", "updated_at"])
-    .executeTakeFirst();
-  if (updated) return { ok: true, version: updated.version, updated_at: updated.updated_at.toISOString() };
-  const current = await db.selectFrom("rooms").select("version").where("id", "=", roomId).executeTakeFirst();
-  return current ? { ok: false, reason: "stale", currentVersion: current.version } : { ok: false, reason: "not-found" };
+  // One transaction, so the room_versions trigger sees who saved (setSaver) with the new walls.
+  return db.transaction().execute(async (trx) => {
+    await setSaver(trx, savedBy);
+    const updated = await trx
+      .updateTable("rooms")
+      .set((eb) => ({
+        ...(change.name !== undefined ? { name: change.name } : {}),
+        outline: toJson(change.outline),
+        obstacles: toJson(change.obstacles),
+        version: eb("version", "+", 1),
+        updated_at: new Date(),
+      }))
+      .where("id", "=", roomId)
+      .where("version", "=", expectedVersion)
+      .returning(["version", "updated_at"])
+      .executeTakeFirst();
+    if (updated) return { ok: true as const, version: updated.version, updated_at: updated.updated_at.toISOString() };
+    const current = await trx.selectFrom("rooms").select("version").where("id", "=", roomId).executeTakeFirst();
+    return current ? { ok: false as const, reason: "stale" as const, currentVersion: current.version } : { ok: false as const, reason: "not-found" as const };
+  });
 }

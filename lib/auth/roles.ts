@@ -36,7 +36,8 @@ const GRANTS: Record<Role, readonly Permission[]> = {
     "time-off:decide",
   ],
   guard: ["shifts:own"],
-  admin: ["users:manage", "settings:manage", "mail:read"],
+  // Admins also run the building's sites, floors and rooms alongside curators.
+  admin: ["users:manage", "settings:manage", "mail:read", "galleries:view", "rooms:edit"],
 };
 
 export function isRole(value: unknown): value is Role {

@@ -33,7 +33,7 @@ function account(role: string) {
 }
 
 const HOMES = [
-  { role: "admin", heading: "Administration", nav: ["Settings", "Users", "Mail"], notNav: ["Galleries", "My shifts"] },
+  { role: "admin", heading: "Administration", nav: ["Galleries", "Settings", "Users", "Mail"], notNav: ["Staffing", "My shifts"] },
   { role: "operations", heading: "Operations overview", nav: ["Galleries", "Exhibitions", "Staffing", "People"], notNav: ["Users", "My shifts"] },
   { role: "curator", heading: "Curator's desk", nav: ["Galleries"], notNav: ["Staffing", "People", "Users"] },
   { role: "guard", heading: "My next shift", nav: ["My shifts"], notNav: ["Galleries", "People", "Users"] },
