@@ -144,6 +144,9 @@ export function RosterWorkbench({ initialWeek }: { initialWeek: string }) {
             <p className="font-semibold" data-testid="roster-status">
               {shown.status === "draft" ? `Draft (revision ${shown.revision})` : `Published version ${shown.version}`}
             </p>
+            <a className="button-quiet" href={`/api/rosters/${shown.id}/csv`} download>
+              Download CSV
+            </a>
             {shown.status === "draft" && (
               <button
                 type="button"
