@@ -30,7 +30,7 @@ export interface RosterView {
   publishReview: PublishReview | null;
   publishConfirmation: string | null;
   publishNote: string | null;
-  posts: { id: string; label: string; skills: string[] }[];
+  posts: { id: string; label: string; room: string; skills: string[] }[];
   guards: { id: number; name: string; skills: string[] }[];
   shifts: { id: number; guardId: number; guardName: string; start: string; end: string; segments: ShiftSegment[]; breaks: ShiftBreak[] }[];
   unfilled: (RosterUnfilled & { label: string })[];
@@ -65,7 +65,7 @@ export async function rosterView(db: Kysely<Database>, rosterId: number): Promis
     publishReview: roster.publish_review,
     publishConfirmation: roster.publish_confirmation,
     publishNote: roster.publish_note,
-    posts: scenario.posts.map((p) => ({ id: p.id, label: postLabel(p.id, rooms), skills: p.skills })),
+    posts: scenario.posts.map((p) => ({ id: p.id, label: postLabel(p.id, rooms), room: rooms.get(p.id) ?? "", skills: p.skills })),
     guards: guards.filter((g) => onStaff.has(guardKey(g.id))).map((g) => ({ id: g.id, name: g.name, skills: g.skills })),
     shifts: shifts.map((s) => ({
       id: s.id,

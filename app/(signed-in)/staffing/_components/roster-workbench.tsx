@@ -152,6 +152,9 @@ export function RosterWorkbench({ initialWeek, initialRosterId = null }: { initi
               {shown.status === "draft" ? `Showing the draft (revision ${shown.revision})` : `Showing published version ${shown.version}`}
               {shown.status === "published" && shown.id !== overview.data?.status.current?.id ? " (superseded)" : ""}
             </p>
+            <a className="button-quiet" href={`/api/rosters/${shown.id}/csv`} download>
+              Download CSV
+            </a>
             {shown.status === "draft" && (
               <button
                 type="button"

@@ -1,0 +1,29 @@
+// A guard's own published shifts in a period: what GET /api/me/shifts answers.
+import type { Kysely, Transaction } from "kysely";
+import type { Database } from "../schema";
+import { publishedShiftsOfGuard } from "./rosters";
+
+type Handle = Kysely<Database> | Transaction<Database>;
+
+/**
+ * The guard's shifts in the latest published version of each week that overlap [from, to),
+ * earliest first, with the scenario of their roster (for post names). Drafts never show.
+ */
+export async function publishedShiftsOfGuardBetween(handle: Handle, guardId: number, from: Date, to: Date) {
+  return publishedShiftsOfGuard(handle, guardId)
+    .select([
+      "shifts.id",
+      "shifts.starts_at",
+      "shifts.ends_at",
+      "shifts.segments",
+      "shifts.breaks",
+      "roster.id as roster_id",
+      "roster.version as roster_version",
+      "roster.starts_on",
+      "roster.scenario",
+    ])
+    .where("shifts.ends_at", ">", from)
+    .where("shifts.starts_at", "<", to)
+    .orderBy("shifts.starts_at")
+    .execute();
+}
