@@ -59,7 +59,7 @@ async function call(
   const headers = new Headers({ "content-type": "application/json" });
   if (role) {
     const user = userOf[role]!;
-    const token = await encode({ token: { uid: user.id, role, email: user.email, name: user.name }, secret: process.env.NEXTAUTH_SECRET! });
+    const token = await encode({ token: { uid: user.id, role, email: user.email, name: user.name, signedInAt: Math.floor(Date.now() / 1000) }, secret: process.env.NEXTAUTH_SECRET! });
     headers.set("cookie", `next-auth.session-token=${token}`);
   }
   const body = init.body ?? (init.json !== undefined ? JSON.stringify(init.json) : undefined);

@@ -25,7 +25,7 @@ export async function signedRequest(user: SignedUser | null, url: string, body?:
   process.env.NEXTAUTH_SECRET ??= SECRET;
   const headers = new Headers({ "content-type": "application/json" });
   if (user) {
-    const token = await encode({ token: { uid: user.id, role: user.role, email: user.email, name: user.name }, secret: process.env.NEXTAUTH_SECRET });
+    const token = await encode({ token: { uid: user.id, role: user.role, email: user.email, name: user.name, signedInAt: Math.floor(Date.now() / 1000) }, secret: process.env.NEXTAUTH_SECRET });
     headers.set("cookie", `next-auth.session-token=${token}`);
   }
   return new NextRequest(url, body === undefined ? { method: "GET", headers } : { method: "POST", headers, body: JSON.stringify(body) });
