@@ -41,6 +41,8 @@ export interface FewestPlan {
   /** Why the search stopped: the bound was met, time ran out, or the witnesses were all seen. */
   stoppedBy: "proven" | "time-limit" | "covered";
   problems: ConstraintProblem[];
+  /** How the plan was proven: the kernel fast path (fewest.ts) or the witness cells (default). */
+  proof?: "kernel" | "witness-cells";
 }
 
 const key = (p: Point) => `${p[0]},${p[1]}`;
@@ -248,7 +250,8 @@ export function planFewestOver(
   let lastTry: { posts: Point[]; certificate: CoverageCertificate } | null = best;
 
   // The best lower bound so far, and the witnesses whose cells prove it.
-  let proof: { bound: number; witnesses: Point[] } = { bound: pinned.length, witnesses: [] };
+  // Every plan has its pinned posts, and at least one post (two for double cover): the floor has area.
+  let proof: { bound: number; witnesses: Point[] } = { bound: Math.max(pinned.length, demand), witnesses: [] };
   let rounds = 0;
   let stoppedBy: FewestPlan["stoppedBy"] = "time-limit";
   const pinnedIndex = pinned.map((p) => candidateKeys.get(key(p))!).filter((i) => i !== undefined);
@@ -416,6 +419,7 @@ export function planFewestOver(
     rounds,
     stoppedBy: proven ? "proven" : stoppedBy,
     problems,
+    proof: "witness-cells",
   };
 }
 
