@@ -28,7 +28,7 @@ export interface RoomReport {
   triangles: number;
   bound: number;
   guaranteed: { posts: Point[] };
-  /** Filled by the fewest plan (issue 4); absent with --guaranteed-only. */
+  /** Filled by the fewest plan; absent with --guaranteed-only. */
   fewest?: {
     posts: Point[];
     lowerBound: number;
@@ -84,7 +84,7 @@ export function planRoomReport(named: NamedRoom, options: RoomReportOptions = {}
     ms: { validate: validateMs, triangulate: triangulateMs, guaranteed: guaranteedMs },
   };
 
-  // ── FEWEST PLAN (issue 4, the sightlines engineer's spot) ────────────────────────────────────
+  // ── FEWEST PLAN ────────────────────────────────────
   if (!options.guaranteedOnly) {
     const fewestStarted = now();
     const plan = planFewest(room, {

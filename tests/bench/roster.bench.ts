@@ -1,4 +1,4 @@
-// Roster engine targets (issue 5): a week of 60 posts x 12 h x 140 guards under 10 s within 5% of its lower bound,
+// Roster engine targets: a week of 60 posts x 12 h x 140 guards under 10 s within 5% of its lower bound,
 // a week of 6 posts x 16 guards under 2 s within 3%. Peer measured in the same run: a greedy two-shift baseline
 // (each post split into an early and a late shift, guards rotating cyclically, least-loaded legal guard first).
 import { blockerFor, commitShift, newLoads, shiftKind } from "@/lib/scheduling/assign";

@@ -58,7 +58,7 @@ async function statusOf(promise: Promise<unknown>): Promise<number | "ok"> {
 }
 
 describe("roles: who may do what", () => {
-  // Navigation per role as issue 2 ("Foundation", App shell) lists it; admins also read caught mail (issue 2, Mail fake).
+  // Navigation per role as README.md lists it; admins also read caught mail.
   it("gives each role the navigation the foundation issue lists", () => {
     const labels = (role: Role) => navigationFor(role).map((entry) => entry.label);
     expect(labels("curator")).toEqual(["Galleries"]);
