@@ -1,7 +1,7 @@
 // A guard's own published shifts in a period: what GET /api/me/shifts answers.
 import type { Kysely, Transaction } from "kysely";
 import type { Database } from "../schema";
-import { publishedShiftsOfGuard } from "./rosters";
+import { GUARD_SHIFT_COLUMNS, publishedShiftsOfGuard } from "./rosters";
 
 type Handle = Kysely<Database> | Transaction<Database>;
 
@@ -12,14 +12,7 @@ type Handle = Kysely<Database> | Transaction<Database>;
 export async function publishedShiftsOfGuardBetween(handle: Handle, guardId: number, from: Date, to: Date) {
   return publishedShiftsOfGuard(handle, guardId)
     .select([
-      "shifts.id",
-      "shifts.starts_at",
-      "shifts.ends_at",
-      "shifts.segments",
-      "shifts.breaks",
-      "roster.id as roster_id",
-      "roster.version as roster_version",
-      "roster.starts_on",
+      ...GUARD_SHIFT_COLUMNS,
       "roster.scenario",
     ])
     .where("shifts.ends_at", ">", from)

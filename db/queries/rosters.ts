@@ -232,19 +232,24 @@ export function publishedShiftsOfGuard(handle: Handle, guardId: number) {
     .where("shifts.guard_id", "=", guardId);
 }
 
+/** The columns of a guard's shift over publishedShiftsOfGuard, shared by every view of them. */
+export const GUARD_SHIFT_COLUMNS = [
+  "shifts.id",
+  "shifts.starts_at",
+  "shifts.ends_at",
+  "shifts.segments",
+  "shifts.breaks",
+  "roster.id as roster_id",
+  "roster.version as roster_version",
+  "roster.starts_on",
+] as const;
+
 /** A guard's shifts in the latest published version of each week, ending after `from`, earliest first. */
 export async function currentShiftsOfGuard(handle: Handle, guardId: number, from?: Date) {
   let query = publishedShiftsOfGuard(handle, guardId)
     .innerJoin("sites", "sites.id", "roster.site_id")
     .select([
-      "shifts.id",
-      "shifts.starts_at",
-      "shifts.ends_at",
-      "shifts.segments",
-      "shifts.breaks",
-      "roster.id as roster_id",
-      "roster.version as roster_version",
-      "roster.starts_on",
+      ...GUARD_SHIFT_COLUMNS,
       "sites.name as site_name",
       "sites.time_zone",
     ]);

@@ -2,27 +2,10 @@
 // and the galleries forms validate with the same ones (react-hook-form + zodResolver).
 import { z } from "zod";
 import { pointSchema, ringSchema } from "@/components/plan/plan-input";
+import { isCurrency, isTimeZone } from "@/lib/format";
 
 const name = (what: string) =>
   z.string({ error: `give the ${what} a name` }).trim().min(1, `give the ${what} a name`).max(120, "keep the name under 120 characters");
-
-function isTimeZone(zone: string): boolean {
-  try {
-    new Intl.DateTimeFormat("en", { timeZone: zone });
-    return true;
-  } catch {
-    return false;
-  }
-}
-
-function isCurrency(code: string): boolean {
-  try {
-    new Intl.NumberFormat("en", { style: "currency", currency: code });
-    return true;
-  } catch {
-    return false;
-  }
-}
 
 export const siteCreateSchema = z.object({
   name: name("site"),

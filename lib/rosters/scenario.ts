@@ -4,6 +4,7 @@
 import { parseScenario, type Scenario } from "@/lib/scheduling/scenario";
 import { addLocalDays } from "@/lib/scheduling/time";
 import type { GuardRow, OpeningHours } from "@/db/schema";
+import { isTimeZone } from "@/lib/format";
 
 export const ROSTER_DAYS = 7;
 
@@ -46,15 +47,6 @@ export function guardKey(guardId: number): string {
 export function guardIdOfKey(key: string): number | null {
   const match = /^G(\d+)$/.exec(key);
   return match ? Number(match[1]) : null;
-}
-
-function isTimeZone(zone: string): boolean {
-  try {
-    new Intl.DateTimeFormat("en", { timeZone: zone });
-    return true;
-  } catch {
-    return false;
-  }
 }
 
 /** True when `date` (YYYY-MM-DD) is a Monday: rosters run Monday to Sunday. */
