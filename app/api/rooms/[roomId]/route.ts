@@ -9,7 +9,7 @@ import { parseBody, parseParams } from "@/lib/api/parse";
 import { requireRole } from "@/lib/api/require-role";
 import { route } from "@/lib/api/route";
 import { normaliseRoom, validateRoom } from "@/lib/geometry/room";
-import { roomIdParams, roomWallsSchema } from "@/components/plan/plan-input";
+import { roomIdParams, roomWallsSchema } from "@/lib/api/plan-input";
 
 type Context = { params: Promise<{ roomId: string }> };
 
