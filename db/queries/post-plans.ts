@@ -1,127 +1,18 @@
-// Post plans: proposing one for a room (computed here with the real planner from lib/guarding, so
-// the API and the seed store the same thing), listing, approving under the rules, and the posts
-// staffing counts (the latest approved plan per exhibition and room).
+// Post plans (SQL only): storing a proposed plan (computed by lib/guarding/plan-room.ts), listing,
+// approving under the rules, and the posts staffing counts (the latest approved plan per
+// exhibition and room).
 import type { Kysely } from "kysely";
 import { db as appDb } from "../index";
 import { toJson, type Database, type PostPlanMethod, type PostPlanOptions, type PostPlanRow } from "../schema";
-import type { Point, Ring, Room } from "../../lib/geometry/types";
-import { prepareRoom } from "../../lib/geometry/room";
-import { triangulate } from "../../lib/geometry/triangulate";
-import { createSightlines } from "../../lib/geometry/visibility";
-import { clipToSightRange } from "../../lib/geometry/visibility-range";
-import { certifyCoverage, type Region } from "../../lib/geometry/coverage";
-import { planGuaranteed, type GuaranteedPlan } from "../../lib/guarding/guaranteed";
-import { allowedPost, checkConstraints } from "../../lib/guarding/constraints";
-import { planFewest } from "../../lib/guarding/fewest";
+import type { Point, Ring } from "../../lib/geometry/types";
 
-/** A problem with the room or the conditions, with where it shows on the drawing. */
-export interface PlanProblem {
-  code: string;
-  message: string;
-  at?: Point;
-}
-
-export interface ComputedPostPlan {
+/** A computed plan as stored (lib/guarding/plan-room.ts computes it; this module only keeps it). */
+export interface StoredPlanInput {
   method: PostPlanMethod;
   posts: Point[];
   lowerBound: number | null;
   proven: boolean;
   covered: number;
-  uncovered: Region;
-}
-
-export interface PlanRequest {
-  options: PostPlanOptions;
-  /** "fewest" (default) or "guaranteed". */
-  method?: PostPlanMethod;
-  /** Seconds the fewest plan may take. */
-  timeLimit?: number;
-}
-
-/**
- * Plans a room under the conditions. The fewest plan (set cover over witnesses, with a lower-bound
- * proof) by default; the guaranteed plan (triangulation and 3-colouring) on request, with pinned
- * posts added and posts in forbidden zones left out, and its coverage certified all the same.
- */
-export async function computePostPlan(
-  input: Room,
-  request: PlanRequest,
-): Promise<{ ok: true; plan: ComputedPostPlan } | { ok: false; problems: PlanProblem[] }> {
-  const prepared = prepareRoom(input);
-  if (!prepared.ok) return { ok: false, problems: prepared.problems };
-  const room = prepared.room;
-  const triangulation = triangulate(room);
-  const guaranteed = planGuaranteed(room, triangulation);
-  const constraints = {
-    pinned: request.options.pinned,
-    forbidden: request.options.forbidden,
-    sightRange: request.options.sightRange ?? undefined,
-    doubleCover: request.options.doubleCover,
-  };
-  const sightlines = createSightlines(room, triangulation);
-  const problems = checkConstraints(room, sightlines, constraints);
-  if (problems.length > 0) return { ok: false, problems };
-
-  if ((request.method ?? "fewest") === "fewest") {
-    const fewest = planFewest(room, {
-      ...constraints,
-      timeLimit: request.timeLimit ?? 10,
-      triangulation,
-      guaranteedPosts: guaranteed.posts,
-    });
-    // Out of time before every point was seen (often under double cover): the guaranteed plan
-    // (two colour classes for double cover) still covers, so answer that instead.
-    if (fewest.covered < 1) {
-      const fallback = await computePostPlan(input, { ...request, method: "guaranteed" });
-      if (fallback.ok && fallback.plan.covered === 1) return fallback;
-    }
-    return {
-      ok: true,
-      plan: {
-        method: "fewest",
-        posts: fewest.posts,
-        lowerBound: fewest.lowerBound,
-        proven: fewest.proven,
-        covered: fewest.covered,
-        uncovered: fewest.uncovered,
-      },
-    };
-  }
-
-  const key = (p: Point) => `${p[0]},${p[1]}`;
-  const posts = [...request.options.pinned];
-  const taken = new Set(posts.map(key));
-  for (const post of request.options.doubleCover ? twoColourPosts(guaranteed) : guaranteed.posts) {
-    if (!taken.has(key(post)) && allowedPost(post, constraints)) {
-      posts.push(post);
-      taken.add(key(post));
-    }
-  }
-  const range = constraints.sightRange;
-  const regions: Region[] = posts.map((post) => {
-    const answer = sightlines.regionOf(post);
-    if (!answer.ok || answer.region.length < 3) return [];
-    return range ? clipToSightRange(answer.region, post, range) : [[answer.region]];
-  });
-  const certificate = certifyCoverage(room, regions, request.options.doubleCover ? 2 : 1);
-  return {
-    ok: true,
-    plan: { method: "guaranteed", posts, lowerBound: null, proven: false, covered: certificate.covered, uncovered: certificate.uncovered },
-  };
-}
-
-/**
- * Posts at the corners of two colour classes: every triangle has one corner of each colour and a
- * corner sees its whole triangle, so two classes see every point twice (double cover). The two
- * classes with the fewest distinct corners are taken.
- */
-function twoColourPosts(plan: GuaranteedPlan): Point[] {
-  const pointsOf: Set<number>[] = [new Set(), new Set(), new Set()];
-  plan.triangles.forEach((triangle, i) => triangle.forEach((v, k) => pointsOf[plan.cornerColours[i][k]].add(v)));
-  const [largest] = [0, 1, 2].sort((a, b) => pointsOf[b].size - pointsOf[a].size);
-  const chosen = new Set<number>();
-  for (let c = 0; c < 3; c++) if (c !== largest) for (const v of pointsOf[c]) chosen.add(v);
-  return [...chosen].sort((a, b) => a - b).map((i) => [plan.points[i][0], plan.points[i][1]] as Point);
 }
 
 export interface PostPlanView {
@@ -164,7 +55,7 @@ function view(row: PostPlanRow & { approved_by_name?: string | null }): PostPlan
 
 /** Stores a computed plan as 'proposed' for the room at `roomVersion`. */
 export async function insertProposedPlan(
-  plan: { roomId: number; exhibitionId: number | null; roomVersion: number; options: PostPlanOptions; computed: ComputedPostPlan },
+  plan: { roomId: number; exhibitionId: number | null; roomVersion: number; options: PostPlanOptions; computed: StoredPlanInput },
   db: Kysely<Database> = appDb,
 ): Promise<PostPlanView> {
   const row = await db

@@ -4,7 +4,8 @@
 // approved plan is left alone, so seeding again never replaces a plan someone approved.
 import { sql, type Kysely } from "kysely";
 import type { Database } from "../schema";
-import { computePostPlan, insertProposedPlan } from "../queries/post-plans";
+import { insertProposedPlan } from "../queries/post-plans";
+import { planPostPlan } from "../../lib/guarding/plan-room";
 import { EXHIBITION, SITE } from "./museum";
 
 /** Solver seconds per room: four rooms stay well under the seed's budget of ~20 s. */
@@ -49,8 +50,8 @@ export async function seedPostPlans(db: Kysely<Database>): Promise<number> {
     for (const room of rooms) {
       const options = { sightRange: room.sight_range, doubleCover: room.double_cover, pinned: [], forbidden: [] };
       const walls = { outline: room.outline, obstacles: room.obstacles };
-      let outcome = await computePostPlan(walls, { options, method: "fewest", timeLimit: SEED_PLAN_SECONDS });
-      if (!outcome.ok || outcome.plan.covered < 1) outcome = await computePostPlan(walls, { options, method: "guaranteed" });
+      let outcome = planPostPlan(walls, { options, method: "fewest", timeLimit: SEED_PLAN_SECONDS });
+      if (!outcome.ok || outcome.plan.covered < 1) outcome = planPostPlan(walls, { options, method: "guaranteed" });
       if (!outcome.ok || outcome.plan.covered < 1) {
         console.error(`seed: no covering post plan for ${room.name}; approve one on its room page`);
         continue;

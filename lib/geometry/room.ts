@@ -35,7 +35,9 @@ export interface ValidateOptions {
 
 /** Coordinates beyond this many metres from the origin are refused (float precision and sanity). */
 export const COORDINATE_LIMIT = 1e6;
-export const DEFAULT_MAX_VERTICES = 50_000;
+/** The most corners (outline plus obstacles) a room may have: the API, the editor and uploads all refuse more. */
+export const CORNER_LIMIT = 50_000;
+export const DEFAULT_MAX_VERTICES = CORNER_LIMIT;
 
 /** A ring with repeated points removed, remembering each kept point's 1-based number in the input. */
 interface CleanRing {

@@ -1,13 +1,11 @@
 // The plan preview behind POST /api/post-plans/preview, kept free of the web framework so it can be
-// tested without a server: read the body (zod), validate the room, answer the `posts` command's room
-// JSON with the fewest plan under the museum's constraints, or a problem a curator can act on.
+// tested without a server: read the body (zod), then plan it with the one pipeline (planRoomReport)
+// and answer the `posts` command's room JSON with the fewest plan under the museum's constraints,
+// or a problem a curator can act on.
 import { z } from "zod";
 import type { Point } from "../geometry/types";
-import { roomsFromGeoJson } from "../geometry/geojson";
-import { planRoomReport, type RoomReport } from "./room-report";
-import { fewestReport, planFewest } from "./fewest";
-import { prepareRoom } from "../geometry/room";
-import { triangulate } from "../geometry/triangulate";
+import { roomsFromGeoJson, type NamedRoom } from "../geometry/geojson";
+import { planRoomReport, type RoomReport, type RoomReportOptions } from "./room-report";
 
 /** The preview answers while the editor waits: at most this many seconds per request. */
 export const PREVIEW_MAX_SECONDS = 10;
@@ -41,45 +39,48 @@ function problem(code: string, message: string, extra: { at?: Point; field?: str
   return { status: 422, body: { error: { ...extra, code, message } } };
 }
 
-/** Plans one room from an API body that is not yet trusted. */
-export function previewPostPlan(input: unknown): PreviewAnswer {
+/** A preview body read and checked: the room and the planning options, or the answer to give. */
+export type PreviewRequest = { ok: true; named: NamedRoom; options: RoomReportOptions } | { ok: false; answer: PreviewAnswer };
+
+/** Reads an API body that is not yet trusted (zod, then GeoJSON); cheap, so the route does it. */
+export function readPreviewRequest(input: unknown): PreviewRequest {
   const parsed = previewBodySchema.safeParse(input);
   if (!parsed.success) {
     const issue = parsed.error.issues[0];
     const field = issue.path.length ? issue.path.map(String).join(".") : "(body)";
-    return problem("invalid-input", `Invalid input: ${field}: ${issue.message}`, { field });
+    return { ok: false, answer: problem("invalid-input", `Invalid input: ${field}: ${issue.message}`, { field }) };
   }
   const body = parsed.data;
   const geojson = "room" in body && body.room ? body.room : body;
   const read = roomsFromGeoJson(geojson, "room");
-  if (read.errors.length) return problem(read.errors[0].code, read.errors[0].message);
+  if (read.errors.length) return { ok: false, answer: problem(read.errors[0].code, read.errors[0].message) };
   const named = read.rooms[0];
-  if (!named) return problem("too-few-points", "the body holds no room polygon");
-  const sightRange = body.sightRange ?? named.sightRange;
+  if (!named) return { ok: false, answer: problem("too-few-points", "the body holds no room polygon") };
+  return {
+    ok: true,
+    named,
+    options: {
+      sightRange: body.sightRange ?? named.sightRange,
+      pinned: body.pinned as Point[] | undefined,
+      forbidden: body.forbidden as Point[][] | undefined,
+      doubleCover: body.doubleCover,
+      timeLimitSeconds: body.timeLimit ?? PREVIEW_DEFAULT_SECONDS,
+    },
+  };
+}
 
-  const outcome = planRoomReport(named, { guaranteedOnly: true, sightRange });
+/** Plans a read preview request (in the server's worker pool): the room JSON or a problem. */
+export function answerPreview(named: NamedRoom, options: RoomReportOptions): PreviewAnswer {
+  const outcome = planRoomReport(named, options);
   if (!outcome.ok) {
     const first = outcome.errors[0];
     return problem(first.code, first.message, first.at ? { at: first.at } : {});
   }
-  const prepared = prepareRoom(named.room);
-  if (!prepared.ok) return problem(prepared.problems[0].code, prepared.problems[0].message);
-  const report = outcome.report;
-  const started = performance.now();
-  const plan = planFewest(prepared.room, {
-    triangulation: triangulate(prepared.room),
-    guaranteedPosts: report.guaranteed.posts,
-    sightRange,
-    pinned: body.pinned as Point[] | undefined,
-    forbidden: body.forbidden as Point[][] | undefined,
-    doubleCover: body.doubleCover,
-    timeLimit: body.timeLimit ?? PREVIEW_DEFAULT_SECONDS,
-  });
-  if (plan.problems.length) {
-    const first = plan.problems[0];
-    return problem(first.code, first.message, first.at ? { at: first.at } : {});
-  }
-  report.fewest = fewestReport(plan);
-  report.ms.fewest = Math.round((performance.now() - started) * 1000) / 1000;
-  return { status: 200, body: { room: report } };
+  return { status: 200, body: { room: outcome.report } };
+}
+
+/** Plans one room from an API body that is not yet trusted, on the calling thread. */
+export function previewPostPlan(input: unknown): PreviewAnswer {
+  const request = readPreviewRequest(input);
+  return request.ok ? answerPreview(request.named, request.options) : request.answer;
 }

@@ -12,7 +12,7 @@
 // Each rule keeps at least one optimal plan of the original program, so the reduced optimum plus
 // the forced columns is the original optimum (tests/sightlines/fewest-reduce.test.ts checks this
 // against exhaustive search on random programs).
-import { solveBinaryProgram, type BinaryAnswer } from "./fewest-solver";
+import { solveBinaryProgram, type BinaryAnswer } from "../solver/highs";
 
 export interface CoverRow {
   items: number[];

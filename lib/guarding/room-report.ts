@@ -1,12 +1,12 @@
-// One room's answer for the `posts` command and the plan preview: validate, triangulate, plan the
-// guaranteed posts (and, where marked below, the fewest posts), with timings. The JSON shape is the
-// contract of scripts/README.md.
+// One room's answer for the `posts` command and the plan preview, from the one planning pipeline
+// (plan-room.ts): validation, triangulation, the guaranteed plan and (unless --guaranteed-only) the
+// fewest plan under the museum's conditions, with timings. The JSON shape is the contract of
+// scripts/README.md.
 import type { Point } from "../geometry/types";
 import type { NamedRoom } from "../geometry/geojson";
-import { prepareRoom, roomArea, roomCounts, type RoomProblem } from "../geometry/room";
-import { triangulate } from "../geometry/triangulate";
-import { planGuaranteed } from "./guaranteed";
-import { fewestReport, planFewest } from "./fewest";
+import type { RoomProblem } from "../geometry/room";
+import { fewestReport } from "./fewest";
+import { planRoom, type PlanProgress, type PlanStage, type StoppedBecause } from "./plan-room";
 
 export interface RoomReportOptions {
   /** Skip the fewest plan (the guaranteed plan only). */
@@ -15,8 +15,16 @@ export interface RoomReportOptions {
   sightRange?: number;
   /** Seconds the fewest plan may take per room (default 10). */
   timeLimitSeconds?: number;
-  /** Largest vertex count accepted (default 50,000, see validateRoom). */
+  /** Largest vertex count accepted (default CORNER_LIMIT, see validateRoom). */
   maxVertices?: number;
+  /** The preview's conditions: posts that stay, zones where no post may stand, double cover. */
+  pinned?: Point[];
+  forbidden?: Point[][];
+  doubleCover?: boolean;
+  /** Epoch milliseconds after which planning stops (the worker pool's hard deadline). */
+  deadline?: number;
+  onProgress?: (progress: PlanProgress) => void;
+  signal?: { readonly aborted: boolean };
 }
 
 /** The room object of the `posts` command's output. Extra fields are allowed by the contract. */
@@ -38,6 +46,8 @@ export interface RoomReport {
     [extra: string]: unknown;
   };
   sightRange?: number;
+  /** Why planning ended: finished, the fewest plan's time limit, or the server's deadline. */
+  stoppedBecause?: StoppedBecause;
   ms: { validate: number; triangulate: number; guaranteed: number; fewest?: number };
 }
 
@@ -51,53 +61,41 @@ export interface RoomErrorEntry {
 
 export type RoomOutcome = { ok: true; report: RoomReport } | { ok: false; errors: RoomErrorEntry[] };
 
-const now = () => performance.now();
-const elapsed = (since: number) => Math.round((now() - since) * 1000) / 1000;
-
 /** Plan one named room; invalid rooms come back as `errors` entries a curator can act on. */
 export function planRoomReport(named: NamedRoom, options: RoomReportOptions = {}): RoomOutcome {
-  const validateStarted = now();
-  const prepared = prepareRoom(named.room, { maxVertices: options.maxVertices });
-  const validateMs = elapsed(validateStarted);
-  if (!prepared.ok) return { ok: false, errors: prepared.problems.map((problem) => errorEntry(named.name, problem)) };
-  const room = prepared.room;
-  const { vertices, obstacles } = roomCounts(room);
-
-  const triangulateStarted = now();
-  const triangulation = triangulate(room);
-  const triangulateMs = elapsed(triangulateStarted);
-
-  const guaranteedStarted = now();
-  const guaranteed = planGuaranteed(room, triangulation);
-  const guaranteedMs = elapsed(guaranteedStarted);
-
   const sightRange = named.sightRange ?? options.sightRange;
+  const outcome = planRoom(named.room, {
+    method: options.guaranteedOnly ? "guaranteed" : "fewest",
+    certify: !options.guaranteedOnly,
+    maxVertices: options.maxVertices,
+    sightRange,
+    pinned: options.pinned,
+    forbidden: options.forbidden,
+    doubleCover: options.doubleCover,
+    timeLimit: options.timeLimitSeconds ?? 10,
+    deadline: options.deadline,
+    onProgress: options.onProgress,
+    signal: options.signal,
+  });
+  if (!outcome.ok) return { ok: false, errors: outcome.problems.map((problem) => errorEntry(named.name, problem)) };
+  const planned = outcome.planned;
+  const time = (stage: PlanStage) => planned.ms[stage] ?? 0;
   const report: RoomReport = {
     name: named.name,
-    vertices,
-    obstacles,
-    area: roomArea(room),
-    triangles: triangulation.triangles.length,
-    bound: guaranteed.bound,
-    guaranteed: { posts: guaranteed.posts },
+    vertices: planned.vertices,
+    obstacles: planned.obstacles,
+    area: planned.area,
+    triangles: planned.triangles,
+    bound: planned.guaranteed.bound,
+    guaranteed: { posts: planned.guaranteed.posts },
     ...(sightRange !== undefined ? { sightRange } : {}),
-    ms: { validate: validateMs, triangulate: triangulateMs, guaranteed: guaranteedMs },
+    stoppedBecause: planned.stoppedBecause,
+    ms: { validate: time("validate"), triangulate: time("triangulate"), guaranteed: time("guaranteed") },
   };
-
-  // ── FEWEST PLAN ────────────────────────────────────
-  if (!options.guaranteedOnly) {
-    const fewestStarted = now();
-    const plan = planFewest(room, {
-      triangulation,
-      guaranteedPosts: guaranteed.posts,
-      sightRange,
-      timeLimit: options.timeLimitSeconds ?? 10,
-    });
-    report.fewest = fewestReport(plan);
-    report.ms.fewest = elapsed(fewestStarted);
+  if (planned.fewest) {
+    report.fewest = fewestReport(planned.fewest);
+    report.ms.fewest = time("fewest");
   }
-  // ─────────────────────────────────────────────────────────────────────────────────────────────
-
   return { ok: true, report };
 }
 

@@ -1,6 +1,6 @@
 // Dantzig's set-covering model of shift scheduling (Dantzig 1954), aggregated by day, shift pattern and guard skill class, solved with HiGHS.
 import type { Demand } from "./demand";
-import { loadHighs } from "./highsSolver";
+import { loadHighs } from "../solver/highs";
 import { dayPatterns, paidHoursOf, worksAt, type ShiftPattern } from "./patterns";
 import type { Scenario } from "./scenario";
 import { HOUR } from "./time";

@@ -5,7 +5,7 @@ import { blockerFor, commitShift, newLoads, shiftKind } from "@/lib/scheduling/a
 import { buildDemand, hasSkills } from "@/lib/scheduling/demand";
 import { buildRoster } from "@/lib/scheduling/engine";
 import { generateScenario, type GeneratedOptions } from "@/lib/scheduling/generate";
-import { loadHighs } from "@/lib/scheduling/highsSolver";
+import { loadHighs } from "@/lib/solver/highs";
 import type { Roster, Shift } from "@/lib/scheduling/roster";
 import { checkRoster } from "@/lib/scheduling/rules";
 import type { Scenario } from "@/lib/scheduling/scenario";

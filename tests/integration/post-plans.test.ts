@@ -7,7 +7,8 @@ import { migrateToLatest } from "@/db/migrator";
 import type { Database } from "@/db/schema";
 import { EXHIBITION, FLOORS, seedDemoMuseum } from "@/db/seed";
 import { SEED_APPROVER } from "@/db/seed/post-plans";
-import { approvePostPlan, approvedPostsForSite, computePostPlan, insertProposedPlan, postPlanById, postPlansForRoom } from "@/db/queries/post-plans";
+import { approvePostPlan, approvedPostsForSite, insertProposedPlan, postPlanById, postPlansForRoom } from "@/db/queries/post-plans";
+import { planPostPlan } from "@/lib/guarding/plan-room";
 import { roomDetail, saveRoomWalls } from "@/db/queries/rooms";
 import type { Point, Ring, Room } from "@/lib/geometry/types";
 import { createDb } from "@/db";
@@ -167,7 +168,7 @@ describe("proposing and approving", () => {
     const id = await roomId("Poster Corridor");
     const room = (await roomDetail(id, db))!;
     const exhibitionId = room.exhibitions[0].id;
-    const computed = await computePostPlan(room, { options, method: "guaranteed" });
+    const computed = planPostPlan(room, { options, method: "guaranteed" });
     if (!computed.ok) throw new Error(JSON.stringify(computed.problems));
     const proposal = await insertProposedPlan({ roomId: id, exhibitionId, roomVersion: room.version, options, computed: computed.plan }, db);
     expect(proposal.status).toBe("proposed");
@@ -188,7 +189,7 @@ describe("proposing and approving", () => {
     const room = (await roomDetail(id, db))!;
     // One pinned post with a 2 m sight range cannot watch an 18 × 12 m gallery.
     const narrow = { ...options, sightRange: 2, pinned: [[1, 1]] as Point[], forbidden: [[[0, 0], [18, 0], [18, 12], [0, 12]]] as Ring[] };
-    const computed = await computePostPlan(room, { options: { ...narrow, forbidden: [] }, method: "guaranteed" });
+    const computed = planPostPlan(room, { options: { ...narrow, forbidden: [] }, method: "guaranteed" });
     if (!computed.ok) throw new Error(JSON.stringify(computed.problems));
     const partial = { ...computed.plan, posts: [[1, 1]] as Point[], covered: 0.05 };
     const proposal = await insertProposedPlan({ roomId: id, exhibitionId: null, roomVersion: room.version, options: { ...narrow, forbidden: [] }, computed: partial }, db);
@@ -202,7 +203,7 @@ describe("proposing and approving", () => {
   it("refuses a plan computed for walls that have changed since (stale room version), and changes nothing", async () => {
     const id = await roomId("Print Room");
     const room = (await roomDetail(id, db))!;
-    const computed = await computePostPlan(room, { options, method: "guaranteed" });
+    const computed = planPostPlan(room, { options, method: "guaranteed" });
     if (!computed.ok) throw new Error(JSON.stringify(computed.problems));
     const proposal = await insertProposedPlan({ roomId: id, exhibitionId: null, roomVersion: room.version, options, computed: computed.plan }, db);
 

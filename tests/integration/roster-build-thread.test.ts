@@ -13,7 +13,7 @@ import type { Database } from "@/db/schema";
 import { buildDraftRoster, scenarioForWeek } from "@/lib/rosters/build";
 import { storedRoster } from "@/lib/rosters/stored";
 import { buildRoster } from "@/lib/scheduling/engine";
-import { loadHighs } from "@/lib/scheduling/highsSolver";
+import { loadHighs } from "@/lib/solver/highs";
 import { requireDatabaseUrl } from "./support/database";
 import { mondayAhead } from "./support/rosters";
 

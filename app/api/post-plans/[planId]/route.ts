@@ -6,7 +6,7 @@ import { ApiProblem } from "@/lib/api/problem";
 import { parseParams } from "@/lib/api/parse";
 import { requireRole } from "@/lib/api/require-role";
 import { route } from "@/lib/api/route";
-import { planIdParams } from "@/components/plan/plan-input";
+import { planIdParams } from "@/lib/api/plan-input";
 
 type Context = { params: Promise<{ planId: string }> };
 

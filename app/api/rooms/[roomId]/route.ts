@@ -12,7 +12,7 @@ import { ROOM_BODY_LIMIT, parseBody, parseParams } from "@/lib/api/parse";
 import { requireRole } from "@/lib/api/require-role";
 import { route } from "@/lib/api/route";
 import { normaliseRoom, validateRoom } from "@/lib/geometry/room";
-import { roomIdParams, roomWallsSchema } from "@/components/plan/plan-input";
+import { roomIdParams, roomWallsSchema } from "@/lib/api/plan-input";
 import { deleteRoom, floorById, roomBasics, roomNameTaken, roomsInUse, updateRoomPlace } from "@/db/queries/galleries";
 import { deleteQuerySchema, roomPlaceSchema } from "@/lib/api/galleries";
 import { inUseProblem } from "@/lib/galleries/in-use";

@@ -2,7 +2,7 @@
 // The numbers beside the drawing: n, h, the guaranteed bound and count, the fewest count with its
 // lower bound, and whether the fewest plan is proven minimal.
 import type { PlanAnswer } from "@/components/plan/plan-messages";
-import type { FewestPreview } from "@/components/plan/plan-input";
+import type { FewestPreview } from "@/lib/api/plan-input";
 
 interface Props {
   answer: PlanAnswer | null;

@@ -6,7 +6,7 @@ import { ApiRequestError, apiFetch } from "@/lib/api/client";
 import type { Point, Ring } from "@/lib/geometry/types";
 import type { RoomExhibition } from "@/db/queries/rooms";
 import type { PostPlanView } from "@/db/queries/post-plans";
-import type { PostPlanRequest } from "@/components/plan/plan-input";
+import type { PostPlanRequest } from "@/lib/api/plan-input";
 
 interface Props {
   roomId: number;

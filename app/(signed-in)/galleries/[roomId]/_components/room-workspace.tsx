@@ -14,7 +14,7 @@ import type { PostPlanView } from "@/db/queries/post-plans";
 import { RoomDrawing, COLOUR_NAMES, type DrawingMode } from "@/components/plan/room-drawing";
 import { usePlanWorker } from "@/components/plan/use-plan-worker";
 import { addRectangleObstacle, deleteVertex, moveVertex, rectangle, removeObstacle, ringOf, type VertexRef } from "@/components/plan/room-edits";
-import type { FewestPreview, RoomWalls } from "@/components/plan/plan-input";
+import type { FewestPreview, RoomWalls } from "@/lib/api/plan-input";
 import { PlanFigures } from "./plan-figures";
 import { StaffingPanel } from "./staffing-panel";
 import { PostPlansPanel } from "./post-plans-panel";

@@ -3,12 +3,13 @@
 import { NextResponse, type NextRequest } from "next/server";
 import { db } from "@/db";
 import { roomDetail } from "@/db/queries/rooms";
-import { computePostPlan, insertProposedPlan, postPlansForRoom } from "@/db/queries/post-plans";
+import { insertProposedPlan, postPlansForRoom } from "@/db/queries/post-plans";
+import { planPostPlan } from "@/lib/guarding/plan-room";
 import { ApiProblem } from "@/lib/api/problem";
 import { ROOM_BODY_LIMIT, parseBody, parseParams } from "@/lib/api/parse";
 import { requireRole } from "@/lib/api/require-role";
 import { route } from "@/lib/api/route";
-import { postPlanRequestSchema, roomIdParams } from "@/components/plan/plan-input";
+import { postPlanRequestSchema, roomIdParams } from "@/lib/api/plan-input";
 
 type Context = { params: Promise<{ roomId: string }> };
 
@@ -54,7 +55,7 @@ export const POST = route<Context>(async (request: NextRequest, context) => {
     pinned: body.pinned,
     forbidden: body.forbidden,
   };
-  const outcome = await computePostPlan(
+  const outcome = planPostPlan(
     { outline: room.outline, obstacles: room.obstacles },
     { options, method: body.method ?? "fewest", timeLimit: FEWEST_SECONDS },
   );

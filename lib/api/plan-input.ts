@@ -2,10 +2,11 @@
 // the room page builds its requests from the same types, so the two cannot disagree.
 import { z } from "zod";
 import { bodyId, counter, idParam } from "@/lib/api/ids";
+import { CORNER_LIMIT } from "../geometry/room";
 
 const coordinate = z.number({ error: "coordinates must be numbers (metres)" }).refine(Number.isFinite, "coordinates must be finite numbers");
 export const pointSchema = z.tuple([coordinate, coordinate], { error: "a point is [x, y] in metres" });
-export const ringSchema = z.array(pointSchema).max(50_000, "a ring may have at most 50,000 points");
+export const ringSchema = z.array(pointSchema).max(CORNER_LIMIT, `a ring may have at most ${CORNER_LIMIT.toLocaleString("en")} points`);
 
 /** PUT /api/rooms/[roomId]: new walls, checked against the version the editor started from. */
 export const roomWallsSchema = z.object({

@@ -1,25 +1,40 @@
-// The integer programs of the fewest plan, solved by HiGHS (Huangfu & Hall 2018; npm `highs`,
-// WebAssembly, the same in Node and the browser), written in CPLEX LP format.
+// The one HiGHS wrapper (Huangfu & Hall 2018; npm `highs`, WebAssembly) for both engines: the
+// staffing engine's covers (lib/scheduling) and the fewest plan's integer programs (lib/guarding).
+// One loaded instance per thread; loading costs tens of milliseconds, solving reuses it.
 
-type HighsColumn = { Primal?: number };
-type HighsAnswer = { Status: string; ObjectiveValue?: number; Columns: Record<string, HighsColumn> };
-type HighsSolver = { solve(problem: string, options?: Record<string, unknown>): HighsAnswer };
+export type HighsColumn = { Primal?: number };
+export type HighsSolution = { Status: string; ObjectiveValue: number; Columns: Record<string, HighsColumn> };
+export type Highs = { solve(problem: string, options?: Record<string, unknown>): HighsSolution };
 
-// Loaded once when this module is first imported (top-level await), so every solve after that is
-// synchronous and the planners can run inside synchronous code such as the `posts` command's report.
-async function loadSolver(): Promise<HighsSolver> {
-  const module = await import("highs");
-  const load = (module as unknown as { default: (settings?: unknown) => Promise<HighsSolver> }).default;
-  return load();
-}
-const highs: HighsSolver = await loadSolver();
+let loading: Promise<Highs> | null = null;
+let loaded: Highs | null = null;
+
 // HiGHS's first branch and bound runs its WebAssembly before the engine has optimised it (a few
 // hundred milliseconds on a small cover); one small program at load time pays that once, here,
 // instead of inside the first plan's time.
-highs.solve(
-  ["Minimize", " obj: x0 + x1 + x2 + x3 + x4", "Subject To", " c0: x0 + x1 >= 1", " c1: x1 + x2 >= 1", " c2: x2 + x3 >= 1", " c3: x3 + x4 >= 1", " c4: x4 + x0 >= 1", "Binary", " x0 x1 x2 x3 x4", "End"].join("\n"),
-  { output_flag: false, mip_heuristic_run_feasibility_jump: false },
-);
+const WARM_UP = ["Minimize", " obj: x0 + x1 + x2 + x3 + x4", "Subject To", " c0: x0 + x1 >= 1", " c1: x1 + x2 >= 1", " c2: x2 + x3 >= 1", " c3: x3 + x4 >= 1", " c4: x4 + x0 >= 1", "Binary", " x0 x1 x2 x3 x4", "End"].join("\n");
+
+/** The thread's HiGHS instance, loaded (and warmed up) on first call. */
+export function loadHighs(): Promise<Highs> {
+  loading ??= import("highs").then(async (module) => {
+    const load = (module as unknown as { default: (settings?: unknown) => Promise<Highs> }).default;
+    const highs = await load();
+    highs.solve(WARM_UP, { output_flag: false, mip_heuristic_run_feasibility_jump: false });
+    loaded = highs;
+    return highs;
+  });
+  return loading;
+}
+
+/** The loaded instance for synchronous solves; the fewest plan runs inside synchronous code. */
+export function highsNow(): Highs {
+  if (!loaded) throw new Error("the integer program solver is not loaded yet (await loadHighs() first)");
+  return loaded;
+}
+
+// In Node (server, worker threads, command-line tools, tests) load at import, so the planners' synchronous
+// solves find the instance ready. The browser's plan worker never runs the fewest plan and skips it.
+if (typeof window === "undefined" && !("WorkerGlobalScope" in globalThis)) await loadHighs();
 
 export interface BinaryAnswer {
   /** "optimal", "stopped" (node or time limit, best found so far) or "infeasible". */
@@ -30,7 +45,7 @@ export interface BinaryAnswer {
 
 /**
  * Minimise the weighted count of chosen items under constraints written as lists of item indices:
- * `sum(items) >= need` (cover) and `sum(items) <= most` (a cut-off).
+ * `sum(items) >= need` (cover) and `sum(items) <= most` (a cut-off). Written in CPLEX LP format.
  */
 export function solveBinaryProgram(problem: {
   weights: number[];
@@ -56,7 +71,7 @@ export function solveBinaryProgram(problem: {
   lines.push("Binary");
   for (let i = 0; i < n; i += 20) lines.push(" " + Array.from({ length: Math.min(20, n - i) }, (_, k) => `x${i + k}`).join(" "));
   lines.push("End");
-  let answer: HighsAnswer;
+  let answer: HighsSolution;
   try {
     // Feasibility jump (a primal heuristic) costs about 15 ms per call even on a 5 x 5 program,
     // more than the whole branch and bound of the reduced covers here (measured with highs 1.15).
@@ -67,7 +82,7 @@ export function solveBinaryProgram(problem: {
       mip_heuristic_run_feasibility_jump: false,
     };
     if (problem.nodes !== undefined) options.mip_max_nodes = problem.nodes;
-    answer = highs.solve(lines.join("\n"), options);
+    answer = highsNow().solve(lines.join("\n"), options);
   } catch (error) {
     // An out-of-memory WebAssembly instance cannot recover; report it as the solver's failure.
     throw new Error(`the integer program solver failed: ${(error as Error).message}`);
