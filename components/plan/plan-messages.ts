@@ -28,7 +28,8 @@ export type PlanAnswer =
       area: number;
       bound: number;
       triangles: PlanTriangle[];
-      guaranteed: { posts: Point[]; colour: number };
+      /** doubleCover: the posts are the corners of the two smallest colour classes. */
+      guaranteed: { posts: Point[]; colour: number; doubleCover: boolean };
       /** Sight of `shownPosts` (or the guaranteed posts when none were given). */
       sight: {
         posts: Point[];

@@ -1,6 +1,6 @@
 // The live re-plan off the main thread: the one planning pipeline (lib/guarding/plan-room.ts) with
 // the guaranteed plan, or the shown posts, certified and their sight drawn. Newest job wins.
-import { planRoom } from "@/lib/guarding/plan-room";
+import { guaranteedPosts, planRoom } from "@/lib/guarding/plan-room";
 import type { PlanAnswer, PlanJob, PlanTriangle } from "./plan-messages";
 
 let latest = 0;
@@ -28,7 +28,8 @@ function plan(job: PlanJob): PlanAnswer {
     area: outcome.planned.area,
     bound: guaranteed.bound,
     triangles,
-    guaranteed: { posts: guaranteed.posts, colour: guaranteed.postColour },
+    // Double cover: the guaranteed plan is the two smallest colour classes (each sees the floor once).
+    guaranteed: { posts: guaranteedPosts(guaranteed, { doubleCover: job.doubleCover }), colour: guaranteed.postColour, doubleCover: job.doubleCover },
     sight: { posts: shown.posts, regions: regions ?? [], covered: shown.covered ?? 0, uncovered: shown.uncovered },
     ms: Math.round(performance.now() - started),
   };

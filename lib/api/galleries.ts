@@ -1,7 +1,7 @@
 // The bodies of the sites, floors and rooms API as zod schemas: the route handlers parse with them
 // and the galleries forms validate with the same ones (react-hook-form + zodResolver).
 import { z } from "zod";
-import { pointSchema, ringSchema } from "@/components/plan/plan-input";
+import { pointSchema, ringSchema } from "@/lib/api/plan-input";
 import { isCurrency, isTimeZone } from "@/lib/format";
 
 const name = (what: string) =>

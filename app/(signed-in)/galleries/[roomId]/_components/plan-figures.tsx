@@ -54,14 +54,19 @@ export function PlanFigures({ answer, sightOf, fewest, fewestState, fewestMessag
         </dd>
         <dt title="No plan under these conditions has fewer posts">Lower bound</dt>
         <dd className="text-right">{fewest?.lowerBound ?? "–"}</dd>
-        <dt>Floor seen by {sightOf}</dt>
+        <dt>{ok?.guaranteed.doubleCover ? `Floor seen by two posts (${sightOf})` : `Floor seen by ${sightOf}`}</dt>
         <dd data-testid="covered" className={`text-right ${covered !== null && covered < 1 ? "font-semibold text-alert-700" : ""}`}>
           {covered === null ? "–" : percent(covered)}
         </dd>
       </dl>
-      {ok && colourName && (
+      {ok && colourName && !ok.guaranteed.doubleCover && (
         <p className="text-xs text-stone-700">
           Guaranteed posts stand on the {colourName} corners of the triangulation: every triangle has one corner of each colour, so the smallest colour class sees the whole floor (Fisk, 1978).
+        </p>
+      )}
+      {ok && ok.guaranteed.doubleCover && (
+        <p className="text-xs text-stone-700" data-testid="double-cover-note">
+          Every point must be seen by two posts, so the guaranteed plan takes the corners of the two smallest colour classes: every triangle has one corner of each colour and each class sees the whole floor, so together they see it twice (Fisk, 1978).
         </p>
       )}
       {fewestState === "computing" && <p className="text-sm text-stone-700" aria-live="polite">Fewest plan: computing…</p>}

@@ -3,7 +3,7 @@
 import { NextResponse, type NextRequest } from "next/server";
 import { db } from "@/db";
 import { roomBasics, roomVersions } from "@/db/queries/galleries";
-import { roomIdParams } from "@/components/plan/plan-input";
+import { roomIdParams } from "@/lib/api/plan-input";
 import { ApiProblem } from "@/lib/api/problem";
 import { parseParams } from "@/lib/api/parse";
 import { requireRole } from "@/lib/api/require-role";
