@@ -328,6 +328,15 @@ export interface Database {
   time_off: TimeOffTable;
   post_plans: PostPlansTable;
   room_versions: RoomVersionsTable;
+  sign_in_throttle: SignInThrottleTable;
+}
+
+/** Failed sign-ins per "account:<e-mail>" and "address:<client>" (migration 0060). */
+export interface SignInThrottleTable {
+  key: string;
+  failures: Generated<number>;
+  window_started_at: Generated<Timestamp>;
+  locked_until: Timestamp | null;
 }
 
 export type User = Selectable<UsersTable>;

@@ -6,6 +6,7 @@ import { db } from "@/db";
 import { isRole } from "@/lib/auth/roles";
 import { decoyHash, hashPassword, needsRehash, verifyPassword } from "@/lib/auth/passwords";
 import { safeRedirect } from "@/lib/auth/callback-url";
+import { clientAddress, noteSignInFailure, noteSignInSuccess, signInLock, throttledMessage } from "@/lib/auth/throttle";
 import { SESSION_IDLE_SECONDS, SESSION_RENEW_SECONDS, nowSeconds, withinAbsoluteLimit } from "@/lib/auth/session-policy";
 
 const credentialsSchema = z.object({
@@ -31,6 +32,20 @@ export async function verifyCredentials(email: string, password: string) {
   return { id: String(user.id), email: user.email, name: user.name, role: user.role };
 }
 
+/**
+ * Checks the password unless the account or the address is locked out (lib/auth/throttle.ts).
+ * A locked sign-in throws, and next-auth hands the message to the sign-in form; it skips the
+ * password check for known and unknown accounts alike.
+ */
+export async function signInWithThrottle(email: string, password: string, address: string) {
+  const lockedUntil = await signInLock(db, email, address);
+  if (lockedUntil) throw new Error(throttledMessage(lockedUntil));
+  const user = await verifyCredentials(email, password);
+  if (user) await noteSignInSuccess(db, email);
+  else await noteSignInFailure(db, email, address);
+  return user;
+}
+
 export const authOptions: NextAuthOptions = {
   secret: process.env.NEXTAUTH_SECRET,
   // A signed JWT in a cookie: no session table, and the proxy can read it without the database.
@@ -45,10 +60,10 @@ export const authOptions: NextAuthOptions = {
         email: { label: "E-mail", type: "email" },
         password: { label: "Password", type: "password" },
       },
-      async authorize(credentials) {
+      async authorize(credentials, req) {
         const parsed = credentialsSchema.safeParse(credentials ?? {});
         if (!parsed.success) return null;
-        return verifyCredentials(parsed.data.email, parsed.data.password);
+        return signInWithThrottle(parsed.data.email, parsed.data.password, clientAddress(req?.headers));
       },
     }),
   ],

@@ -1,6 +1,7 @@
 "use client";
 import { signIn } from "next-auth/react";
 import { useEffect, useState } from "react";
+import { THROTTLED_PREFIX } from "@/lib/auth/throttle-message";
 
 const WRONG_CREDENTIALS = "That e-mail and password do not match an account. Check both and try again.";
 
@@ -24,7 +25,14 @@ export function SignInForm({ callbackUrl, initialError }: { callbackUrl: string;
         callbackUrl,
       });
       if (!result || result.error || !result.ok) {
-        setError(result?.error === "CredentialsSignin" || !result?.error ? WRONG_CREDENTIALS : "Signing in failed: the server did not answer. Try again in a moment.");
+        const reason = result?.error ?? "";
+        setError(
+          reason.startsWith(THROTTLED_PREFIX)
+            ? reason
+            : reason === "CredentialsSignin" || !reason
+              ? WRONG_CREDENTIALS
+              : "Signing in failed: the server did not answer. Try again in a moment.",
+        );
         setPending(false);
         return;
       }
