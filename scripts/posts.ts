@@ -2,10 +2,14 @@
 // Plans posts for every room in the GeoJSON files ("-" reads standard input) and prints one JSON
 // document {rooms, errors} on stdout; logs go to stderr. Exit 0 when all input was valid, 2 when
 // some was not (the valid rooms are still answered), 1 on an internal failure.
-// Contract: scripts/README.md.
+// Contract: scripts/README.md. The rooms are planned in parallel in the planning pool (worker
+// threads, cores less one; SIGHTWARD_PLAN_WORKERS), answered in input order; each room has a hard
+// deadline of its time limit plus SIGHTWARD_PLAN_OVERHEAD_SECONDS (default here 120), after which
+// it answers the best plan then known with stoppedBecause "deadline".
 import { readFileSync } from "node:fs";
-import { roomsFromGeoJson } from "../lib/geometry/geojson";
-import { planRoomReport, type RoomErrorEntry, type RoomReport, type RoomReportOptions } from "../lib/guarding/room-report";
+import { roomsFromGeoJson, type NamedRoom } from "../lib/geometry/geojson";
+import { PlanPool } from "../lib/guarding/plan-pool";
+import { stoppedRoomReport, type RoomErrorEntry, type RoomOutcome, type RoomReport, type RoomReportOptions } from "../lib/guarding/room-report";
 
 interface CommandLine {
   options: RoomReportOptions;
@@ -42,16 +46,47 @@ function readInput(file: string): string {
   return file === "-" ? readFileSync(0, "utf8") : readFileSync(file, "utf8");
 }
 
-function main(): number {
+type ErrorEntry = RoomErrorEntry | { room: string; code: string; message: string };
+
+/** Seconds a room may take beyond its fewest time limit before its thread is ended. */
+function overheadSeconds(): number {
+  const value = Number(process.env.SIGHTWARD_PLAN_OVERHEAD_SECONDS);
+  return process.env.SIGHTWARD_PLAN_OVERHEAD_SECONDS !== undefined && Number.isFinite(value) && value >= 0 ? value : 120;
+}
+
+async function planInPool(pool: PlanPool, named: NamedRoom, options: RoomReportOptions): Promise<RoomOutcome | { internal: string }> {
+  const seconds = (options.guaranteedOnly ? 0 : (options.timeLimitSeconds ?? 10)) + overheadSeconds();
+  const answer = await pool.run(
+    { kind: "report", named, options },
+    {
+      seconds,
+      onProgress: (progress) => {
+        const best = progress.best;
+        const plan = best ? `, best ${best.posts.length} posts (${best.method})` : "";
+        console.error(`posts: ${named.name}: ${progress.stage} done at ${Math.round(progress.ms)} ms${plan}`);
+      },
+    },
+  );
+  if (answer.status === "done") return answer.result.kind === "report" ? answer.result.outcome : { internal: "the planner answered another kind of job" };
+  if (answer.status === "failed") return { internal: answer.message };
+  const report = answer.reason === "cancelled" ? null : stoppedRoomReport(named, options, answer.progress, answer.reason);
+  if (report) return { ok: true, report };
+  return {
+    ok: false,
+    errors: [{ room: named.name, code: "planning-deadline", message: `${named.name}: planning stopped (${answer.reason}) after ${Math.round(seconds)} s before the guaranteed plan was ready` }],
+  };
+}
+
+async function main(): Promise<number> {
   const commandLine = readCommandLine(process.argv.slice(2));
   if (typeof commandLine === "string") {
     console.error(commandLine === USAGE ? USAGE : `posts: ${commandLine}\n${USAGE}`);
     process.stdout.write(`${JSON.stringify({ rooms: [], errors: [{ room: null, code: "usage", message: commandLine }] }, null, 2)}\n`);
     return 2;
   }
-  const rooms: RoomReport[] = [];
-  const errors: (RoomErrorEntry | { room: string; code: string; message: string })[] = [];
-  let internalFailure = false;
+  const pool = new PlanPool({ queue: Number.MAX_SAFE_INTEGER });
+  // Every room is queued at once; the answers are gathered in input order.
+  const work: ({ named: NamedRoom; answer: Promise<RoomOutcome | { internal: string }> } | { errors: ErrorEntry[] })[] = [];
   for (const file of commandLine.files) {
     const label = file === "-" ? "stdin" : file;
     let value: unknown;
@@ -59,39 +94,58 @@ function main(): number {
       value = JSON.parse(readInput(file));
     } catch (error) {
       const unreadable = (error as NodeJS.ErrnoException).code !== undefined;
-      errors.push({
-        room: label,
-        code: unreadable ? "unreadable-file" : "bad-json",
-        message: unreadable ? `${label}: cannot read the file (${(error as Error).message})` : `${label}: not valid JSON (${(error as Error).message})`,
+      work.push({
+        errors: [
+          {
+            room: label,
+            code: unreadable ? "unreadable-file" : "bad-json",
+            message: unreadable ? `${label}: cannot read the file (${(error as Error).message})` : `${label}: not valid JSON (${(error as Error).message})`,
+          },
+        ],
       });
       continue;
     }
     const parsed = roomsFromGeoJson(value, label.split("/").pop() ?? label);
-    errors.push(...parsed.errors);
-    for (const named of parsed.rooms) {
-      try {
-        const outcome = planRoomReport(named, commandLine.options);
-        if (outcome.ok) {
-          rooms.push(outcome.report);
-          console.error(`posts: ${named.name}: ${outcome.report.guaranteed.posts.length} guaranteed posts (bound ${outcome.report.bound})`);
-        } else {
-          errors.push(...outcome.errors);
-          console.error(`posts: ${named.name}: ${outcome.errors[0].message}`);
-        }
-      } catch (error) {
+    work.push({ errors: parsed.errors });
+    for (const named of parsed.rooms) work.push({ named, answer: planInPool(pool, named, commandLine.options) });
+  }
+  const rooms: RoomReport[] = [];
+  const errors: ErrorEntry[] = [];
+  let internalFailure = false;
+  try {
+    for (const item of work) {
+      if ("errors" in item) {
+        errors.push(...item.errors);
+        continue;
+      }
+      const { named } = item;
+      const outcome = await item.answer;
+      if ("internal" in outcome) {
         internalFailure = true;
-        console.error(`posts: internal failure on ${named.name}:`, error);
-        errors.push({ room: named.name, code: "internal", message: `${named.name}: internal failure (${(error as Error).message})` });
+        console.error(`posts: internal failure on ${named.name}: ${outcome.internal}`);
+        errors.push({ room: named.name, code: "internal", message: `${named.name}: internal failure (${outcome.internal})` });
+      } else if (outcome.ok) {
+        rooms.push(outcome.report);
+        const stopped = outcome.report.stoppedBecause === "deadline" || outcome.report.stoppedBecause === "memory-limit" ? `, stopped: ${outcome.report.stoppedBecause}` : "";
+        console.error(`posts: ${named.name}: ${outcome.report.guaranteed.posts.length} guaranteed posts (bound ${outcome.report.bound})${stopped}`);
+      } else {
+        errors.push(...outcome.errors);
+        console.error(`posts: ${named.name}: ${outcome.errors[0].message}`);
       }
     }
+  } finally {
+    await pool.close();
   }
   process.stdout.write(`${JSON.stringify({ rooms, errors }, null, 2)}\n`);
   return internalFailure ? 1 : errors.length > 0 ? 2 : 0;
 }
 
-try {
-  process.exitCode = main();
-} catch (error) {
-  console.error("posts: internal failure:", error);
-  process.exitCode = 1;
-}
+main().then(
+  (code) => {
+    process.exitCode = code;
+  },
+  (error) => {
+    console.error("posts: internal failure:", error);
+    process.exitCode = 1;
+  },
+);

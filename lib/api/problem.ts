@@ -10,18 +10,20 @@ export class ApiProblem extends Error {
     readonly code: string,
     message: string,
     readonly details?: ErrorDetails,
+    /** Extra response headers (e.g. Retry-After on 503). */
+    readonly headers?: Record<string, string>,
   ) {
     super(message);
     this.name = "ApiProblem";
   }
 
   toResponse(): NextResponse {
-    return apiError(this.status, this.code, this.message, this.details);
+    return apiError(this.status, this.code, this.message, this.details, this.headers);
   }
 }
 
-export function apiError(status: number, code: string, message: string, details?: ErrorDetails): NextResponse {
-  return NextResponse.json({ error: { ...details, code, message } }, { status });
+export function apiError(status: number, code: string, message: string, details?: ErrorDetails, headers?: Record<string, string>): NextResponse {
+  return NextResponse.json({ error: { ...details, code, message } }, { status, headers });
 }
 
 // node-postgres connection failures and PostgreSQL's "connection exception" / "operator intervention" classes.

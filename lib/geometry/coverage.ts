@@ -59,12 +59,40 @@ function coordinateSize(regions: Region[]): number {
   return size;
 }
 
-/** Union of many regions in one sweep. */
+/**
+ * Union of many regions: in one sweep while they are small together, else merged in a tree of
+ * sweeps over consecutive batches (in the given order, which callers keep spatially coherent). One
+ * sweep over hundreds of large sight regions would meet every crossing of every pair that overlaps
+ * (quadratic in the posts for a hall); each partial union has dropped its inner edges, so later
+ * sweeps meet only the outlines that remain.
+ */
 export function unionOf(regions: Region[], scale = gridScale(coordinateSize(regions))): Region {
-  const parts = regions.filter((r) => r.length > 0);
+  let parts = regions.filter((r) => r.length > 0);
   if (parts.length <= 1) return parts[0] ?? [];
-  return clip("union", parts, [], scale);
+  const corners = (region: Region) => region.reduce((sum, polygon) => sum + polygon.reduce((n, ring) => n + ring.length, 0), 0);
+  while (parts.length > 1) {
+    const next: Region[] = [];
+    let batch: Region[] = [];
+    let size = 0;
+    const flush = () => {
+      if (batch.length) next.push(batch.length === 1 ? batch[0] : clip("union", batch, [], scale));
+      batch = [];
+      size = 0;
+    };
+    for (const part of parts) {
+      const n = corners(part);
+      if (batch.length >= 2 && size + n > UNION_SWEEP_CORNERS) flush();
+      batch.push(part);
+      size += n;
+    }
+    flush();
+    parts = next;
+  }
+  return parts[0];
 }
+
+/** Corners merged per sweep in unionOf (a batch holds at least two regions). */
+const UNION_SWEEP_CORNERS = 6000;
 
 /** The parts of the room seen by at least two of the regions: the union of pairwise overlaps. */
 export function seenTwice(regions: Region[], scale = gridScale(coordinateSize(regions))): Region {

@@ -14,7 +14,7 @@
 import type { Point, Ring, Room, Triangulation } from "../geometry/types";
 import { createSightlines, type Sightlines } from "../geometry/visibility";
 import { clipToSightRange, discCorners } from "../geometry/visibility-range";
-import { certifyCoverage, pointInside, ringArea, roomRegion, type CoverageCertificate, type Region } from "../geometry/coverage";
+import { certifyCoverage, pointInside, regionArea, ringArea, roomRegion, type CoverageCertificate, type Region } from "../geometry/coverage";
 import { createWitnessCells } from "./lower-bound-arrangement";
 import { allowedPost, checkConstraints, type ConstraintProblem, type PostConstraints } from "./constraints";
 import { solveCover } from "./fewest-reduce";
@@ -43,6 +43,11 @@ export interface FewestPlan {
   problems: ConstraintProblem[];
   /** How the plan was proven: the kernel fast path (fewest.ts) or the witness cells (default). */
   proof?: "kernel" | "witness-cells";
+  /**
+   * What says the posts see the room: the coverage certificate, or (when the answer is the starting
+   * plan given as covered, see `startingCovered`) the theorem behind that plan.
+   */
+  coveredBy?: "certificate" | "theorem";
 }
 
 const key = (p: Point) => `${p[0]},${p[1]}`;
@@ -141,7 +146,15 @@ function roomScale(room: Room): number {
 export function planFewestOver(
   room: Room,
   triangulation: Triangulation,
-  options: FewestOptions & { startingPlan?: Point[] } = {},
+  options: FewestOptions & {
+    startingPlan?: Point[];
+    /**
+     * The starting plan (with the pinned posts) is known to see the whole room without a
+     * certificate: the guaranteed plan with no sight range and no corner left out (every triangle
+     * has a post at a corner, Fisk 1978). Its certificate, the costliest in a large hall, is skipped.
+     */
+    startingCovered?: boolean;
+  } = {},
 ): FewestPlan {
   const started = performance.now();
   const deadline = started + 1000 * (options.timeLimit ?? 10);
@@ -243,9 +256,15 @@ export function planFewestOver(
   // The starting plan (the guaranteed plan when it obeys the constraints) is the first upper bound.
   let best: { posts: Point[]; certificate: CoverageCertificate } | null = null;
   const starting = [...pinned, ...(options.startingPlan ?? []).filter((p) => allowedPost(p, options))];
+  let theoremBest: { posts: Point[]; certificate: CoverageCertificate } | null = null;
   if (options.startingPlan && starting.length) {
-    const certificate = certify(starting);
-    if (certificate.covered === 1) best = { posts: starting, certificate };
+    if (options.startingCovered && demand === 1) {
+      const whole = regionArea(roomRegion(room));
+      best = theoremBest = { posts: starting, certificate: { covered: 1, uncovered: [], uncoveredArea: 0, roomArea: whole, demand } };
+    } else {
+      const certificate = certify(starting);
+      if (certificate.covered === 1) best = { posts: starting, certificate };
+    }
   }
   let lastTry: { posts: Point[]; certificate: CoverageCertificate } | null = best;
 
@@ -420,6 +439,7 @@ export function planFewestOver(
     stoppedBy: proven ? "proven" : stoppedBy,
     problems,
     proof: "witness-cells",
+    coveredBy: chosen !== null && chosen === theoremBest ? "theorem" : "certificate",
   };
 }
 

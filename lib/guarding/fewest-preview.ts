@@ -1,11 +1,12 @@
 // The plan preview behind POST /api/post-plans/preview, kept free of the web framework so it can be
 // tested without a server: read the body (zod), then plan it with the one pipeline (planRoomReport)
-// and answer the `posts` command's room JSON with the fewest plan under the museum's constraints,
-// or a problem a curator can act on.
+// in the server's planning pool (previewInPool) and answer the `posts` command's room JSON with the
+// fewest plan under the museum's constraints, or a problem a curator can act on.
 import { z } from "zod";
 import type { Point } from "../geometry/types";
 import { roomsFromGeoJson, type NamedRoom } from "../geometry/geojson";
-import { planRoomReport, type RoomReport, type RoomReportOptions } from "./room-report";
+import { planRoomReport, stoppedRoomReport, type RoomReport, type RoomReportOptions } from "./room-report";
+import { planPool } from "./plan-pool";
 
 /** The preview answers while the editor waits: at most this many seconds per request. */
 export const PREVIEW_MAX_SECONDS = 10;
@@ -33,7 +34,7 @@ export type PreviewBody = z.infer<typeof previewBodySchema>;
 
 export type PreviewAnswer =
   | { status: 200; body: { room: RoomReport } }
-  | { status: 422; body: { error: { code: string; message: string; at?: Point; field?: string } } };
+  | { status: 422 | 499 | 500 | 503; body: { error: { code: string; message: string; at?: Point; field?: string } } };
 
 function problem(code: string, message: string, extra: { at?: Point; field?: string } = {}): PreviewAnswer {
   return { status: 422, body: { error: { ...extra, code, message } } };
@@ -83,4 +84,52 @@ export function answerPreview(named: NamedRoom, options: RoomReportOptions): Pre
 export function previewPostPlan(input: unknown): PreviewAnswer {
   const request = readPreviewRequest(input);
   return request.ok ? answerPreview(request.named, request.options) : request.answer;
+}
+
+/**
+ * Seconds a pool job may run beyond the fewest plan's own time limit (validation, triangulation,
+ * the guaranteed plan, sight and certificate); SIGHTWARD_PLAN_OVERHEAD_SECONDS, default 5.
+ */
+export function planOverheadSeconds(): number {
+  const value = Number(process.env.SIGHTWARD_PLAN_OVERHEAD_SECONDS);
+  return process.env.SIGHTWARD_PLAN_OVERHEAD_SECONDS !== undefined && Number.isFinite(value) && value >= 0 ? value : 5;
+}
+
+/**
+ * Plans a read preview request in the server's planning pool. A job ended at its deadline (or by
+ * the memory limit) still answers the best plan then known with `stoppedBecause`; one ended before
+ * the guaranteed plan existed answers 503. Throws PlanPoolFull when every planner is busy.
+ */
+export async function previewInPool(named: NamedRoom, options: RoomReportOptions, signal?: AbortSignal): Promise<PreviewAnswer> {
+  const seconds = (options.timeLimitSeconds ?? PREVIEW_DEFAULT_SECONDS) + planOverheadSeconds();
+  const transferable = { ...options, onProgress: undefined, signal: undefined, deadline: undefined };
+  const answer = await planPool().run({ kind: "report", named, options: transferable }, { seconds, signal });
+  if (answer.status === "done") {
+    if (answer.result.kind !== "report") throw new Error("the planner answered another kind of job");
+    const outcome = answer.result.outcome;
+    if (!outcome.ok) {
+      const first = outcome.errors[0];
+      return problem(first.code, first.message, first.at ? { at: first.at } : {});
+    }
+    return { status: 200, body: { room: outcome.report } };
+  }
+  if (answer.status === "failed") {
+    console.error(`[planner] preview of ${named.name} failed: ${answer.message}`);
+    return { status: 500, body: { error: { code: "planner-failed", message: "The planner failed on this room; it has been logged. Try again, or simplify the outline." } } };
+  }
+  if (answer.reason === "cancelled") {
+    return { status: 499, body: { error: { code: "cancelled", message: "The preview was cancelled before it finished." } } };
+  }
+  const report = stoppedRoomReport(named, options, answer.progress, answer.reason);
+  if (report) return { status: 200, body: { room: report } };
+  const why = answer.reason === "memory-limit" ? "ran out of its memory allowance" : `reached its ${Math.round(seconds)} s deadline`;
+  return {
+    status: 503,
+    body: {
+      error: {
+        code: answer.reason === "memory-limit" ? "planning-memory-limit" : "planning-deadline",
+        message: `The planner ${why} before even the guaranteed plan of ${named.name} was ready; split the room into smaller rooms or simplify its outline, then try again.`,
+      },
+    },
+  };
 }

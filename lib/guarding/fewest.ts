@@ -16,13 +16,13 @@ export type { FewestOptions, FewestPlan } from "./fewest-core";
  */
 export function planFewest(
   room: Room,
-  options: FewestOptions & { triangulation?: Triangulation; guaranteedPosts?: Point[] } = {},
+  options: FewestOptions & { triangulation?: Triangulation; guaranteedPosts?: Point[]; guaranteedCovered?: boolean } = {},
 ): FewestPlan {
   const easy = planFromKernel(room, options);
   if (easy) return easy;
   const triangulation = options.triangulation ?? triangulate(room);
   const guaranteedPosts = options.guaranteedPosts ?? planGuaranteed(room, triangulation).posts;
-  return planFewestOver(room, triangulation, { ...options, startingPlan: guaranteedPosts });
+  return planFewestOver(room, triangulation, { ...options, startingPlan: guaranteedPosts, startingCovered: options.guaranteedCovered });
 }
 
 /**

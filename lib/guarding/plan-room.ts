@@ -29,7 +29,7 @@ export type PlanMethod = "fewest" | "guaranteed" | "shown";
 export type PlanStage = "validate" | "triangulate" | "guaranteed" | "fewest" | "sight" | "certificate";
 
 /** Why planning ended: it finished, the fewest plan's own time limit cut it, or a hard stop came first. */
-export type StoppedBecause = "finished" | "time-limit" | "deadline" | "cancelled";
+export type StoppedBecause = "finished" | "time-limit" | "deadline" | "cancelled" | "memory-limit";
 
 /** The plan a room is given: what the API stores and the panel shows. */
 export interface ComputedPostPlan {
@@ -44,12 +44,27 @@ export interface ComputedPostPlan {
   uncovered: Region;
 }
 
+/** What is known of the room once the guaranteed plan exists: enough to answer if planning stops there. */
+export interface PlannedFacts {
+  vertices: number;
+  obstacles: number;
+  area: number;
+  triangles: number;
+  /** floor((n + 2h) / 3), the guaranteed plan's bound. */
+  bound: number;
+  guaranteedPosts: Point[];
+}
+
 export interface PlanProgress {
   stage: PlanStage;
   /** Milliseconds since planning began. */
   ms: number;
   /** The best plan known at this point (the guaranteed plan once it exists). */
   best?: ComputedPostPlan;
+  /** The room's counts and guaranteed plan, from the guaranteed stage on. */
+  facts?: PlannedFacts;
+  /** Milliseconds each finished stage took. */
+  stages: Partial<Record<PlanStage, number>>;
 }
 
 export interface PlanRoomOptions extends PostConstraints {
@@ -105,6 +120,7 @@ export function planRoom(input: Room, options: PlanRoomOptions = {}): PlanRoomOu
   const began = performance.now();
   const ms: PlannedRoom["ms"] = {};
   let best: ComputedPostPlan | undefined;
+  let facts: PlannedFacts | undefined;
   const method = options.method ?? "fewest";
   const checkpoint = () => {
     if (options.signal?.aborted) throw new PlanStopped("cancelled");
@@ -115,7 +131,7 @@ export function planRoom(input: Room, options: PlanRoomOptions = {}): PlanRoomOu
     const started = performance.now();
     const result = work();
     ms[name] = round(performance.now() - started);
-    options.onProgress?.({ stage: name, ms: round(performance.now() - began), best });
+    options.onProgress?.({ stage: name, ms: round(performance.now() - began), best, facts, stages: { ...ms } });
     return result;
   };
 
@@ -144,6 +160,8 @@ export function planRoom(input: Room, options: PlanRoomOptions = {}): PlanRoomOu
       ...theoremCoverage(plan, posts, constraints),
       uncovered: [],
     };
+    const counts = roomCounts(room);
+    facts = { ...counts, area: roomArea(room), triangles: triangulation.triangles.length, bound: plan.bound, guaranteedPosts: plan.posts };
     return plan;
   });
 
@@ -167,12 +185,20 @@ export function planRoom(input: Room, options: PlanRoomOptions = {}): PlanRoomOu
   } else {
     const run = stage("fewest", () => {
       const secondsLeft = options.deadline === undefined ? Infinity : (options.deadline - Date.now()) / 1000;
-      return planFewest(room, {
+      const answer = planFewest(room, {
         ...constraints,
         timeLimit: Math.max(0.05, Math.min(options.timeLimit ?? 10, secondsLeft * 0.9)),
         triangulation,
         guaranteedPosts: guaranteed.posts,
+        // The theorem already says the guaranteed plan sees the room (no sight range, no corner
+        // left out): the fewest planner need not certify it again.
+        guaranteedCovered: best!.coveredBy === "theorem" && !constraints.doubleCover,
       });
+      // A fewest plan that sees everything is the best plan from here on (progress reports it).
+      if (answer.problems.length === 0 && answer.covered === 1) {
+        best = { method: "fewest", posts: answer.posts, lowerBound: answer.lowerBound, proven: answer.proven, covered: 1, coveredBy: answer.coveredBy ?? "certificate", uncovered: answer.uncovered };
+      }
+      return answer;
     });
     fewest = run;
     if (run.problems.length > 0) return { ok: false, problems: run.problems };
@@ -183,7 +209,7 @@ export function planRoom(input: Room, options: PlanRoomOptions = {}): PlanRoomOu
       lowerBound: run.lowerBound,
       proven: run.proven,
       covered: run.covered,
-      coveredBy: "certificate",
+      coveredBy: run.coveredBy ?? "certificate",
       uncovered: run.uncovered,
     };
     // Out of time before every point was seen (often under double cover): the guaranteed plan

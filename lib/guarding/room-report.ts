@@ -6,7 +6,7 @@ import type { Point } from "../geometry/types";
 import type { NamedRoom } from "../geometry/geojson";
 import type { RoomProblem } from "../geometry/room";
 import { fewestReport } from "./fewest";
-import { planRoom, type PlanProgress, type PlanStage, type StoppedBecause } from "./plan-room";
+import { planRoom, type ComputedPostPlan, type PlanProgress, type PlanStage, type StoppedBecause } from "./plan-room";
 
 export interface RoomReportOptions {
   /** Skip the fewest plan (the guaranteed plan only). */
@@ -48,6 +48,11 @@ export interface RoomReport {
   sightRange?: number;
   /** Why planning ended: finished, the fewest plan's time limit, or the server's deadline. */
   stoppedBecause?: StoppedBecause;
+  /**
+   * Only when planning was stopped before the fewest plan (deadline, cancel, memory): the best plan
+   * known then, the guaranteed plan at least, with what is known of its coverage.
+   */
+  best?: Pick<ComputedPostPlan, "method" | "posts" | "lowerBound" | "proven" | "covered" | "coveredBy">;
   ms: { validate: number; triangulate: number; guaranteed: number; fewest?: number };
 }
 
@@ -97,6 +102,37 @@ export function planRoomReport(named: NamedRoom, options: RoomReportOptions = {}
     report.ms.fewest = time("fewest");
   }
   return { ok: true, report };
+}
+
+/**
+ * The answer for a room whose planning was ended from outside (the pool's deadline, a cancelled
+ * request, the thread's memory limit) after the guaranteed stage: the room's counts, the guaranteed
+ * plan, the best plan then known and why it stopped. Null when planning ended before that stage.
+ */
+export function stoppedRoomReport(
+  named: NamedRoom,
+  options: Pick<RoomReportOptions, "sightRange">,
+  progress: PlanProgress | undefined,
+  reason: Exclude<StoppedBecause, "finished" | "time-limit">,
+): RoomReport | null {
+  const facts = progress?.facts;
+  if (!progress || !facts || !progress.best) return null;
+  const sightRange = named.sightRange ?? options.sightRange;
+  const { method, posts, lowerBound, proven, covered, coveredBy } = progress.best;
+  const time = (stage: PlanStage) => progress.stages[stage] ?? 0;
+  return {
+    name: named.name,
+    vertices: facts.vertices,
+    obstacles: facts.obstacles,
+    area: facts.area,
+    triangles: facts.triangles,
+    bound: facts.bound,
+    guaranteed: { posts: facts.guaranteedPosts },
+    ...(sightRange !== undefined ? { sightRange } : {}),
+    stoppedBecause: reason,
+    best: { method, posts, lowerBound, proven, covered, coveredBy },
+    ms: { validate: time("validate"), triangulate: time("triangulate"), guaranteed: time("guaranteed") },
+  };
 }
 
 function errorEntry(name: string, problem: RoomProblem): RoomErrorEntry {

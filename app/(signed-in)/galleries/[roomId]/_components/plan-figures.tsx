@@ -9,7 +9,7 @@ interface Props {
   /** Whose posts the worker certified: "the fewest plan", "plan 12", ... */
   sightOf: string;
   fewest: FewestPreview | null;
-  fewestState: "idle" | "computing" | "unavailable" | "failed";
+  fewestState: "idle" | "computing" | "unavailable" | "failed" | "stopped";
   fewestMessage: string | null;
   colourName: string | null;
 }
@@ -71,6 +71,11 @@ export function PlanFigures({ answer, sightOf, fewest, fewestState, fewestMessag
       )}
       {fewestState === "computing" && <p className="text-sm text-stone-700" aria-live="polite">Fewest plan: computing…</p>}
       {fewestState === "unavailable" && <p className="text-sm text-stone-700">The fewest plan preview is not available on this server yet.</p>}
+      {fewestState === "stopped" && (
+        <p className="text-sm text-stone-700">
+          The planner reached {fewestMessage} before it found a plan with fewer posts; the guaranteed plan stands (its coverage is shown above).
+        </p>
+      )}
       {fewestState === "failed" && <p className="text-sm text-alert-700">The fewest plan could not be computed: {fewestMessage}</p>}
     </section>
   );

@@ -43,8 +43,9 @@ export function PostPlansPanel(props: Props) {
         pinned: props.pinned,
         forbidden: props.forbidden,
       };
-      const { plan } = await apiFetch<{ plan: PostPlanView }>(`/api/rooms/${props.roomId}/post-plans`, { body });
-      setMessage({ kind: "ok", text: `Plan ${plan.id} proposed: ${plan.posts.length} posts, ${plan.covered >= 1 ? "the whole floor seen" : `${(plan.covered * 100).toFixed(1)}% seen`}.` });
+      const { plan, stoppedBecause } = await apiFetch<{ plan: PostPlanView; stoppedBecause?: string }>(`/api/rooms/${props.roomId}/post-plans`, { body });
+      const stopped = stoppedBecause === "deadline" || stoppedBecause === "memory-limit" ? " The planner stopped at the server's limit, so this is the guaranteed plan." : "";
+      setMessage({ kind: "ok", text: `Plan ${plan.id} proposed: ${plan.posts.length} posts, ${plan.covered >= 1 ? "the whole floor seen" : `${(plan.covered * 100).toFixed(1)}% seen`}.${stopped}` });
       // Show what would be approved: the stored plan's posts and sight on the drawing.
       props.onShow(plan);
       props.onChanged();

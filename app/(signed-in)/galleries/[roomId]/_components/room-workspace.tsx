@@ -73,7 +73,7 @@ export function RoomWorkspace({ initial, canEdit, canApprove, exhibitionId, caut
   // The fewest plan from the server, remembered with the room and conditions it was computed for.
   const previewKey = JSON.stringify({ room, sightRange, doubleCover, pinned, forbidden });
   const [fewest, setFewest] = useState<{ key: string; plan: FewestPreview } | null>(null);
-  const [fewestState, setFewestState] = useState<"idle" | "computing" | "unavailable" | "failed">("idle");
+  const [fewestState, setFewestState] = useState<"idle" | "computing" | "unavailable" | "failed" | "stopped">("idle");
   const [fewestMessage, setFewestMessage] = useState<string | null>(null);
   const fewestCurrent = fewest && fewest.key === previewKey ? fewest.plan : null;
   // A stored plan chosen from the list is drawn instead of the live one until the walls change.
@@ -97,7 +97,7 @@ export function RoomWorkspace({ initial, canEdit, canApprove, exhibitionId, caut
       try {
         // The preview takes a GeoJSON Polygon (ring 0 the outline, then obstacles) and answers the
         // `posts` command's room JSON (scripts/README.md) with its `fewest` field.
-        const response = await apiFetch<{ room?: { fewest?: FewestPreview } }>("/api/post-plans/preview", {
+        const response = await apiFetch<{ room?: { fewest?: FewestPreview; stoppedBecause?: string } }>("/api/post-plans/preview", {
           body: {
             room: { type: "Polygon", coordinates: [room.outline, ...room.obstacles] },
             ...(sightRange ? { sightRange } : {}),
@@ -109,6 +109,14 @@ export function RoomWorkspace({ initial, canEdit, canApprove, exhibitionId, caut
           signal: controller.signal,
         });
         const plan = response.room?.fewest;
+        const stopped = response.room?.stoppedBecause;
+        if (!plan && (stopped === "deadline" || stopped === "memory-limit")) {
+          // The server's planner ended the job before the fewest plan: the guaranteed plan stands.
+          setFewest(null);
+          setFewestState("stopped");
+          setFewestMessage(stopped === "deadline" ? "the server's time limit" : "the server's memory limit");
+          return;
+        }
         if (!plan || !Array.isArray(plan.posts)) throw new Error("the preview answered without a fewest plan");
         setFewest({ key: previewKey, plan });
         setFewestState("idle");

@@ -1,10 +1,14 @@
-// GET: a room's post plans, newest first. POST (operations): plan the room's current walls on the
-// server with the real planner under the exhibition's conditions and store the plan as 'proposed'.
+// GET: a room's post plans, newest first. POST (operations): plan the room's current walls in the
+// server's planning pool under the exhibition's conditions and store the plan as 'proposed'. A job
+// ended at its deadline stores the guaranteed plan when its coverage is known (the theorem), and
+// says so; otherwise nothing is stored and the answer says why.
 import { NextResponse, type NextRequest } from "next/server";
 import { db } from "@/db";
 import { roomDetail } from "@/db/queries/rooms";
 import { insertProposedPlan, postPlansForRoom } from "@/db/queries/post-plans";
-import { planPostPlan } from "@/lib/guarding/plan-room";
+import type { StorablePlan, StoppedBecause } from "@/lib/guarding/plan-room";
+import { planPool } from "@/lib/guarding/plan-pool";
+import { planOverheadSeconds } from "@/lib/guarding/fewest-preview";
 import { ApiProblem } from "@/lib/api/problem";
 import { ROOM_BODY_LIMIT, parseBody, parseParams } from "@/lib/api/parse";
 import { requireRole } from "@/lib/api/require-role";
@@ -55,13 +59,40 @@ export const POST = route<Context>(async (request: NextRequest, context) => {
     pinned: body.pinned,
     forbidden: body.forbidden,
   };
-  const outcome = planPostPlan(
-    { outline: room.outline, obstacles: room.obstacles },
-    { options, method: body.method ?? "fewest", timeLimit: FEWEST_SECONDS },
+  const answer = await planPool().run(
+    {
+      kind: "storable",
+      room: { outline: room.outline, obstacles: room.obstacles },
+      request: { options, method: body.method ?? "fewest", timeLimit: FEWEST_SECONDS },
+    },
+    { seconds: FEWEST_SECONDS + planOverheadSeconds(), signal: request.signal },
   );
-  if (!outcome.ok) {
-    throw new ApiProblem(422, "invalid-plan-request", `No plan can be computed: ${outcome.problems[0].message}.`, { problems: outcome.problems });
+  let computed: StorablePlan;
+  let stoppedBecause: StoppedBecause;
+  if (answer.status === "done") {
+    if (answer.result.kind !== "storable") throw new Error("the planner answered another kind of job");
+    const outcome = answer.result.outcome;
+    if (!outcome.ok) {
+      throw new ApiProblem(422, "invalid-plan-request", `No plan can be computed: ${outcome.problems[0].message}.`, { problems: outcome.problems });
+    }
+    computed = outcome.plan;
+    stoppedBecause = outcome.stoppedBecause;
+  } else if (answer.status === "failed") {
+    throw new Error(`planning ${room.name} failed: ${answer.message}`);
+  } else if (answer.reason === "cancelled") {
+    throw new ApiProblem(499, "cancelled", "The plan was cancelled before it finished; nothing was stored.");
+  } else {
+    const best = answer.progress?.best;
+    if (!best || best.covered !== 1) {
+      throw new ApiProblem(
+        503,
+        answer.reason === "memory-limit" ? "planning-memory-limit" : "planning-deadline",
+        `The planner stopped (${answer.reason === "memory-limit" ? "memory limit" : "deadline"}) before a plan with known coverage of ${room.name} was ready; nothing was stored. Try the guaranteed method, or split the room.`,
+      );
+    }
+    computed = { ...best, method: "guaranteed", covered: 1 };
+    stoppedBecause = answer.reason;
   }
-  const plan = await insertProposedPlan({ roomId, exhibitionId, roomVersion: room.version, options, computed: outcome.plan }, db);
-  return NextResponse.json({ plan, uncovered: outcome.plan.uncovered }, { status: 201 });
+  const plan = await insertProposedPlan({ roomId, exhibitionId, roomVersion: room.version, options, computed }, db);
+  return NextResponse.json({ plan, uncovered: computed.uncovered, stoppedBecause }, { status: 201 });
 });
