@@ -69,7 +69,7 @@ async function planInPool(pool: PlanPool, named: NamedRoom, options: RoomReportO
   );
   if (answer.status === "done") return answer.result.kind === "report" ? answer.result.outcome : { internal: "the planner answered another kind of job" };
   if (answer.status === "failed") return { internal: answer.message };
-  const report = answer.reason === "cancelled" ? null : stoppedRoomReport(named, options, answer.progress, answer.reason);
+  const report = answer.reason === "cancelled" || answer.reason === "shutdown" ? null : stoppedRoomReport(named, options, answer.progress, answer.reason);
   if (report) return { ok: true, report };
   return {
     ok: false,

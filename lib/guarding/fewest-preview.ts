@@ -120,6 +120,9 @@ export async function previewInPool(named: NamedRoom, options: RoomReportOptions
   if (answer.reason === "cancelled") {
     return { status: 499, body: { error: { code: "cancelled", message: "The preview was cancelled before it finished." } } };
   }
+  if (answer.reason === "shutdown") {
+    return { status: 503, body: { error: { code: "server-stopping", message: "The server is restarting; ask for the plan again in a moment." } } };
+  }
   const report = stoppedRoomReport(named, options, answer.progress, answer.reason);
   if (report) return { status: 200, body: { room: report } };
   const why = answer.reason === "memory-limit" ? "ran out of its memory allowance" : `reached its ${Math.round(seconds)} s deadline`;

@@ -37,7 +37,8 @@ export interface RunOptions {
   onProgress?: (progress: PlanProgress) => void;
 }
 
-export type StopReason = "deadline" | "cancelled" | "memory-limit";
+/** Why a job was ended: its deadline, its request was cancelled, its thread's heap, or the server stopping. */
+export type StopReason = "deadline" | "cancelled" | "memory-limit" | "shutdown";
 
 export type PoolAnswer =
   | { status: "done"; result: PlanJobResult; ms: number }
@@ -109,7 +110,7 @@ export class PlanPool {
 
   /** Queues a job; resolves with its answer. Throws PlanPoolFull at once when nothing can take it. */
   run(job: PlanJob, options: RunOptions): Promise<PoolAnswer> {
-    if (this.closed) return Promise.resolve({ status: "failed", message: "the planner is shutting down", ms: 0 });
+    if (this.closed) return Promise.resolve({ status: "stopped", reason: "shutdown", ms: 0 });
     if (options.signal?.aborted) return Promise.resolve({ status: "stopped", reason: "cancelled", ms: 0 });
     const running = this.slots.filter((s) => s.running).length;
     if (this.queue.length >= this.queueLimit + (this.size - running)) throw new PlanPoolFull(this.retryAfter());
@@ -124,13 +125,14 @@ export class PlanPool {
     });
   }
 
-  /** Ends every thread; running and queued jobs answer "failed". */
+  /** Ends every thread; running and queued jobs answer "stopped" with reason "shutdown". */
   async close(): Promise<void> {
     this.closed = true;
-    for (const pending of this.queue.splice(0)) this.settle(pending, { status: "failed", message: "the planner is shutting down", ms: 0 });
+    for (const pending of this.queue.splice(0)) this.settle(pending, { status: "stopped", reason: "shutdown", ms: 0 });
     await Promise.all(
       this.slots.splice(0).map((slot) => {
-        if (slot.running) this.finish(slot, { status: "failed", message: "the planner is shutting down", ms: Date.now() - slot.running.startedAt });
+        const running = slot.running;
+        if (running) this.finish(slot, { status: "stopped", reason: "shutdown", progress: running.progress, ms: Date.now() - running.startedAt });
         return slot.worker.terminate();
       }),
     );
@@ -259,7 +261,7 @@ export class PlanPool {
   }
 }
 
-const holder = globalThis as unknown as { sightwardPlanPool?: PlanPool };
+const holder = globalThis as unknown as { sightwardPlanPool?: PlanPool; sightwardPlanPoolShutDown?: boolean };
 
 /** The server's one pool, made on first use (kept on globalThis across development reloads). */
 export function planPool(): PlanPool {
@@ -267,9 +269,24 @@ export function planPool(): PlanPool {
   return holder.sightwardPlanPool;
 }
 
+/** The server is stopping: ends the pool, and every later job answers "shutdown" at once. */
+export async function shutDownPlanPool(): Promise<void> {
+  const pool = planPool();
+  holder.sightwardPlanPoolShutDown = true;
+  await pool.close();
+}
+
 /** Ends the server's pool (tests, shutdown); the next planPool() makes a new one. */
 export async function closePlanPool(): Promise<void> {
+  if (holder.sightwardPlanPoolShutDown) return;
   const pool = holder.sightwardPlanPool;
   holder.sightwardPlanPool = undefined;
   await pool?.close();
+}
+
+/** Ends the pool on SIGTERM or SIGINT (the server's instrumentation calls this once). */
+export function shutDownPlanPoolOnSignals(): void {
+  const stop = () => void shutDownPlanPool();
+  process.once("SIGTERM", stop);
+  process.once("SIGINT", stop);
 }

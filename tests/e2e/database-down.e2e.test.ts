@@ -1,69 +1,26 @@
 // With PostgreSQL out of reach, pages say "database unavailable" and API routes answer 503 JSON,
 // never a stack trace. A second copy of the built app is started for this, pointed at a closed port.
-import { spawn, type ChildProcess } from "node:child_process";
-import { createServer } from "node:net";
-import path from "node:path";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import type { Browser } from "playwright-core";
 import { DEMO_ACCOUNTS, DEMO_PASSWORD } from "@/db/seed/accounts";
 import { launchBrowser, newContext, signInThroughForm } from "./support/browser";
 import { signedIn } from "./support/http";
+import { freePort, startSecondApp, type SecondApp } from "./support/second-app";
 
-function freePort(): Promise<number> {
-  return new Promise((resolve, reject) => {
-    const server = createServer();
-    server.once("error", reject);
-    server.listen(0, "127.0.0.1", () => {
-      const { port } = server.address() as { port: number };
-      server.close(() => resolve(port));
-    });
-  });
-}
-
-async function waitUntilServing(url: string, child: ChildProcess, log: () => string): Promise<void> {
-  const deadline = Date.now() + 60_000;
-  while (Date.now() < deadline) {
-    if (child.exitCode !== null) throw new Error(`the second app exited (${child.exitCode}):\n${log()}`);
-    try {
-      await fetch(url + "/sign-in", { redirect: "manual" });
-      return;
-    } catch {
-      await new Promise((resolve) => setTimeout(resolve, 250));
-    }
-  }
-  throw new Error(`the second app did not start within 60 s:\n${log()}`);
-}
-
-let app: ChildProcess;
+let app: SecondApp;
 let appUrl: string;
-let output = "";
 let browser: Browser;
 
 beforeAll(async () => {
-  const [appPort, deadPort] = [await freePort(), await freePort()];
-  appUrl = `http://127.0.0.1:${appPort}`;
-  app = spawn(process.execPath, [path.resolve("node_modules/next/dist/bin/next"), "start", "-H", "127.0.0.1", "-p", String(appPort)], {
-    env: {
-      ...process.env,
-      // Nothing listens here: every query fails to connect, as when PostgreSQL is down.
-      DATABASE_URL: `postgres://sightward@127.0.0.1:${deadPort}/sightward`,
-      NEXTAUTH_URL: appUrl,
-      NEXT_TELEMETRY_DISABLED: "1",
-    },
-    stdio: ["ignore", "pipe", "pipe"],
-  });
-  app.stdout?.on("data", (chunk) => (output += chunk));
-  app.stderr?.on("data", (chunk) => (output += chunk));
-  await waitUntilServing(appUrl, app, () => output);
+  // Nothing listens on this port: every query fails to connect, as when PostgreSQL is down.
+  app = await startSecondApp({ DATABASE_URL: `postgres://sightward@127.0.0.1:${await freePort()}/sightward` });
+  appUrl = app.url;
   browser = await launchBrowser();
 });
 
 afterAll(async () => {
   await browser?.close();
-  if (app && app.exitCode === null) {
-    app.kill("SIGTERM");
-    await new Promise((resolve) => app.once("exit", resolve));
-  }
+  await app?.stop();
 });
 
 describe("PostgreSQL unreachable", () => {

@@ -16,33 +16,12 @@ import type { Database } from "@/db/schema";
 import { POST as preview } from "@/app/api/post-plans/preview/route";
 import { GET as health } from "@/app/api/health/route";
 import { closePlanPool, planPool } from "@/lib/guarding/plan-pool";
-import type { Point, Room } from "@/lib/geometry/types";
+import { polygonOf, sawHall } from "../support/halls";
 import { requireDatabaseUrl } from "./support/database";
 import { signedRequest, userByEmail, type SignedUser } from "./support/signed-request";
 
-/**
- * A long hall whose north wall is a saw of `teeth` teeth, with rows × cols square vitrines: about
- * 2·teeth + 4 corners and rows·cols obstacles, large enough that the fewest plan runs for seconds.
- */
-function hall(teeth: number, rows: number, cols: number): Room {
-  const width = teeth * 2;
-  const depth = 40;
-  const outline: Point[] = [[0, 0], [width, 0]];
-  for (let i = teeth; i > 0; i--) outline.push([i * 2, depth], [i * 2 - 1, depth + 3]);
-  outline.push([0, depth]);
-  const obstacles: Point[][] = [];
-  for (let r = 0; r < rows; r++) {
-    for (let c = 0; c < cols; c++) {
-      const x = ((c + 0.5) * width) / cols;
-      const y = ((r + 0.5) * depth) / rows;
-      obstacles.push([[x - 0.4, y - 0.4], [x - 0.4, y + 0.4], [x + 0.4, y + 0.4], [x + 0.4, y - 0.4]]);
-    }
-  }
-  return { outline, obstacles };
-}
-
-const big = hall(300, 5, 20);
-const polygon = (room: Room) => ({ type: "Polygon", coordinates: [room.outline, ...room.obstacles] });
+const big = sawHall(300, 5, 20);
+const polygon = polygonOf;
 const small = { type: "Polygon", coordinates: [[[0, 0], [10, 0], [10, 10], [5, 4], [0, 10]]] };
 
 const ENV = ["SIGHTWARD_PLAN_WORKERS", "SIGHTWARD_PLAN_QUEUE", "SIGHTWARD_PLAN_GRACE_SECONDS", "SIGHTWARD_PLAN_OVERHEAD_SECONDS"] as const;

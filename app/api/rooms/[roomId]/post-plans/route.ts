@@ -81,6 +81,8 @@ export const POST = route<Context>(async (request: NextRequest, context) => {
     throw new Error(`planning ${room.name} failed: ${answer.message}`);
   } else if (answer.reason === "cancelled") {
     throw new ApiProblem(499, "cancelled", "The plan was cancelled before it finished; nothing was stored.");
+  } else if (answer.reason === "shutdown") {
+    throw new ApiProblem(503, "server-stopping", "The server is restarting; nothing was stored. Compute the plan again in a moment.", undefined, { "Retry-After": "10" });
   } else {
     const best = answer.progress?.best;
     if (!best || best.covered !== 1) {
