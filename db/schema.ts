@@ -355,7 +355,7 @@ export type ExhibitionRoom = Selectable<ExhibitionRoomsTable>;
 export type NewExhibitionRoom = Insertable<ExhibitionRoomsTable>;
 export type Guard = Selectable<GuardsTable>;
 /** What the people table and the roster scenario read of a guard. */
-export type GuardRow = Pick<Guard, "id" | "name" | "email" | "contract_hours" | "max_hours" | "skills">;
+export type GuardRow = Pick<Guard, "id" | "name" | "email" | "contract_hours" | "max_hours" | "skills"> & { accepted_extra_hours?: Guard["accepted_extra_hours"] | string };
 export type NewGuard = Insertable<GuardsTable>;
 export type Roster = Selectable<RostersTable>;
 export type NewRoster = Insertable<RostersTable>;

@@ -169,6 +169,8 @@ export interface ApprovedPost {
   label: string;
   /** ['high-value'] in a high-risk exhibition room, else []. */
   skills: string[];
+  /** The room's risk in its exhibition. */
+  risk: "standard" | "high";
   roomId: number;
   exhibitionId: number;
   planId: number;
@@ -218,6 +220,7 @@ export async function approvedPostsForSite(siteId: number, onDate: string, db: K
       room: row.room_name,
       label: `${row.room_name} · post ${index + 1}`,
       skills: row.risk_level === "high" ? ["high-value"] : [],
+      risk: row.risk_level,
       roomId: row.room_id,
       exhibitionId: row.exhibition_id!,
       planId: row.id,

@@ -14,7 +14,7 @@ export async function siteById(handle: Handle, siteId: number) {
 export async function guardsOfSite(handle: Handle, siteId: number) {
   return handle
     .selectFrom("guards")
-    .select(["id", "name", "email", "contract_hours", "max_hours", "skills", "user_id"])
+    .select(["id", "name", "email", "contract_hours", "max_hours", "accepted_extra_hours", "skills", "user_id"])
     .where("site_id", "=", siteId)
     .orderBy("id")
     .execute();

@@ -37,7 +37,7 @@ export async function postsForWeek(db: Kysely<Database>, siteId: number, timeZon
   for (let day = 0; day < days; day++) {
     const date = addLocalDays(timeZone, startsOn, day);
     for (const post of await approvedPostsForSite(siteId, date, db)) {
-      if (!posts.has(post.id)) posts.set(post.id, { id: post.id, room: post.room, skills: post.skills });
+      if (!posts.has(post.id)) posts.set(post.id, { id: post.id, room: post.room, skills: post.skills, risk: post.risk });
     }
   }
   return [...posts.values()];

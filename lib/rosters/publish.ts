@@ -7,6 +7,8 @@ import type { Database, Roster as RosterRow } from "@/db/schema";
 import { enqueueJob } from "@/db/queries/jobs";
 import { publishedVersionOfRevision, publishedVersionOfRevisionOfRoster, publishedVersionsOfWeek } from "@/db/queries/rosters";
 import { lockDraft } from "./edit";
+import { requireConfirmation, reviewOf } from "./review";
+import { guardsOfSite, shiftsOfRoster } from "@/db/queries/rosters";
 import { RosterProblem } from "./problem";
 
 export const ROSTER_BUILD_JOB = "roster-build";
@@ -17,6 +19,9 @@ export interface PublishRequest {
   /** The draft's revision the person was looking at: publishing anything else is a 409. */
   revision: number;
   userId: number | null;
+  /** What the manager typed and wrote when the review asked for it (a room left empty). */
+  confirmation?: string;
+  note?: string;
 }
 
 export interface Publication {
@@ -35,6 +40,11 @@ export async function publishDraft(db: Kysely<Database>, request: PublishRequest
       if (draft.violations.length > 0) {
         throw new RosterProblem(409, "breaks-rules", `The draft breaks ${draft.violations.length} rule(s), first: ${draft.violations[0]!.message}. Fix or rebuild it before publishing.`);
       }
+      // The review the manager saw, computed again from the locked draft: a room left empty needs
+      // the typed confirmation and a note, both kept with the version.
+      const [draftShifts, guards] = await Promise.all([shiftsOfRoster(trx, draft.id), guardsOfSite(trx, draft.site_id)]);
+      const review = reviewOf(draft, draftShifts, new Map(guards.map((g) => [g.id, g.name])));
+      requireConfirmation(review, request.confirmation, request.note);
       const [previous] = await publishedVersionsOfWeek(trx, draft.site_id, draft.starts_on);
       const published = await trx
         .insertInto("rosters")
@@ -55,6 +65,9 @@ export async function publishDraft(db: Kysely<Database>, request: PublishRequest
           violations: JSON.stringify(draft.violations),
           created_by: draft.created_by,
           published_by: request.userId,
+          publish_review: JSON.stringify(review),
+          publish_confirmation: review.needsConfirmation ? request.confirmation!.trim() : null,
+          publish_note: request.note?.trim() ? request.note.trim() : null,
         })
         .returningAll()
         .executeTakeFirstOrThrow();

@@ -3,7 +3,7 @@
 // and skills, approved time off as unavailability, and the default rules.
 import { parseScenario, type Scenario } from "@/lib/scheduling/scenario";
 import { addLocalDays } from "@/lib/scheduling/time";
-import type { GuardRow, OpeningHours } from "@/db/schema";
+import type { GuardRow, OpeningHours, SiteLabourRules } from "@/db/schema";
 import { isTimeZone } from "@/lib/format";
 
 export const ROSTER_DAYS = 7;
@@ -13,12 +13,28 @@ export interface SiteRow {
   time_zone: string;
   hourly_rate: number;
   opening_hours: OpeningHours;
+  labour_rules?: SiteLabourRules | null;
+}
+
+/**
+ * Extra hours a week beyond contract a guard accepts when neither the guard nor the site says
+ * (a default of this product, not a legal figure: contracts and local law govern).
+ */
+export const DEFAULT_ACCEPTED_EXTRA_HOURS = 8;
+
+/** The guard's own accepted extra hours, else the site's default, else DEFAULT_ACCEPTED_EXTRA_HOURS. */
+export function acceptedExtraHours(guard: Pick<GuardRow, "accepted_extra_hours">, site: Pick<SiteRow, "labour_rules">): number {
+  const own = guard.accepted_extra_hours;
+  if (own !== null && own !== undefined && Number.isFinite(Number(own))) return Number(own);
+  const siteDefault = site.labour_rules?.acceptedExtraHours;
+  return typeof siteDefault === "number" && Number.isFinite(siteDefault) && siteDefault >= 0 ? siteDefault : DEFAULT_ACCEPTED_EXTRA_HOURS;
 }
 
 export interface PostRow {
   id: string;
   room: string;
   skills: string[];
+  risk?: "standard" | "high";
 }
 
 
@@ -72,7 +88,7 @@ export function assembleScenario(rows: ScenarioRows): Scenario {
     start: rows.startsOn,
     days,
     opening: { weekly: rows.site.opening_hours.weekly, dates: rows.site.opening_hours.dates ?? {} },
-    posts: rows.posts.map((post) => ({ id: post.id, room: post.room, skills: [...post.skills] })),
+    posts: rows.posts.map((post) => ({ id: post.id, room: post.room, skills: [...post.skills], risk: post.risk ?? "standard" })),
     guards: [...rows.guards]
       .sort((a, b) => a.id - b.id)
       .map((guard) => ({
@@ -81,6 +97,7 @@ export function assembleScenario(rows: ScenarioRows): Scenario {
         email: guard.email,
         contractHours: Number(guard.contract_hours),
         maxHours: Number(guard.max_hours),
+        extraHours: acceptedExtraHours(guard, rows.site),
         skills: [...guard.skills],
         unavailable: rows.timeOff
           .filter((off) => off.guard_id === guard.id && off.starts_on < periodEnd && off.ends_on >= rows.startsOn)

@@ -29,6 +29,10 @@ export type BuildRequestBody = z.infer<typeof buildRequestSchema>;
 
 export const publishRequestSchema = z.object({
   revision: counter("revision"),
+  /** Typed to confirm publishing with a room left empty (the room's name, as the review asks). */
+  confirmation: z.string().max(200, "confirmation: at most 200 characters").optional(),
+  /** Why the week is published anyway; kept with the version. */
+  note: z.string().max(2000, "note: at most 2,000 characters").optional(),
 });
 
 export const reassignRequestSchema = z.object({

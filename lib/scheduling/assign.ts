@@ -6,6 +6,7 @@ import { assignMinCost, FORBIDDEN } from "./hungarian";
 import type { ShiftPattern } from "./patterns";
 import { weekdayNames, type Guard, type Scenario } from "./scenario";
 import { formatClock, HOUR, weekdayIndex } from "./time";
+import { weeklyLimitHours } from "./rules/weeklyMax";
 
 export interface ShiftInstance {
   day: number;
@@ -64,7 +65,7 @@ export function blockerFor(scenario: Scenario, demand: Demand, load: GuardLoad, 
   for (const from of anchors) {
     const to = from + week;
     const paid = near.reduce((sum, s) => sum + (s.end > from && s.start < to ? s.paidMs : 0), 0);
-    if (paid + paidMs > load.guard.maxHours * HOUR + 1000) return "weekly";
+    if (paid + paidMs > weeklyLimitHours(load.guard) * HOUR + 1000) return "weekly";
   }
   return null;
 }

@@ -6,6 +6,7 @@ import { buildDemand, type Demand } from "./demand";
 import { explainUnfilled } from "./explain";
 import { fillGaps } from "./gapFill";
 import { placeDay } from "./placement";
+import { spreadToEmptyRooms } from "./spread";
 import { compareShifts, type Roster, type Shift, type Violation } from "./roster";
 import { checkRoster, ruleContext } from "./rules";
 import type { Scenario } from "./scenario";
@@ -55,6 +56,8 @@ export async function buildRoster(scenario: Scenario, options: { timeLimit?: num
   const repairLoads = loadsFromShifts(scenario, demand, shifts);
   const t3 = performance.now();
   fillGaps(scenario, demand, shifts, empty, repairLoads);
+  // Rooms first, last pass: a guard who is a room's second moves into a room left empty.
+  spreadToEmptyRooms(scenario, demand, shifts, empty);
   const t4 = performance.now();
 
   shifts.sort(compareShifts);

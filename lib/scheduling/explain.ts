@@ -3,6 +3,7 @@ import { hasSkills, isUnavailable, type Demand } from "./demand";
 import type { Shift } from "./roster";
 import type { Scenario } from "./scenario";
 import { formatClock, HOUR } from "./time";
+import { bindingLimit, CONTRACT_HOURS, weeklyLimitHours } from "./rules/weeklyMax";
 
 export function explainUnfilled(scenario: Scenario, demand: Demand, shifts: Shift[], postId: string, slotStart: number, slotEnd: number): string {
   const rules = scenario.rules;
@@ -40,7 +41,7 @@ export function explainUnfilled(scenario: Scenario, demand: Demand, shifts: Shif
       } else if (after.length) add("resting before their next shift");
       else {
         const weekMs = own.filter((s) => s.end > slotStart - 7 * 24 * HOUR && s.start < slotEnd + 7 * 24 * HOUR).reduce((sum, s) => sum + s.segments.reduce((a, x) => a + x.end - x.start, 0), 0);
-        if (weekMs + rules.minShiftHours * HOUR > guard.maxHours * HOUR) add("at their weekly maximum");
+        if (weekMs + rules.minShiftHours * HOUR > weeklyLimitHours(guard) * HOUR) add(bindingLimit(guard) === CONTRACT_HOURS ? "at their contract hours plus accepted extra" : "at their weekly maximum");
         else add("free but no legal shift fits the gap");
       }
     }

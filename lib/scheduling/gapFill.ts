@@ -1,4 +1,6 @@
 // Local repair after the main pass: give a guard with no shift that day a new legal shift over posts left empty.
+// Rooms first, as in placement.ts: a post whose room nobody guards in that slot is taken before a second
+// post of a guarded room, high-risk rooms first, and a new shift is chosen by the rooms it keeps guarded.
 import { blockerFor, commitShift, shiftKind, type GuardLoad } from "./assign";
 import { hasSkills, type Demand } from "./demand";
 import type { Shift } from "./roster";
@@ -11,6 +13,15 @@ export function fillGaps(scenario: Scenario, demand: Demand, shifts: Shift[], em
   const postById = new Map(scenario.posts.map((p) => [p.id, p]));
   const maxStretch = Math.floor((rules.breakAfterHours * 60) / rules.slotMinutes);
   const limitSlots = Math.floor((rules.maxHoursAtOnePost * 60) / rules.slotMinutes);
+  const roomPosts = new Map<string, string[]>();
+  for (const p of scenario.posts) roomPosts.set(p.room || p.id, [...(roomPosts.get(p.room || p.id) ?? []), p.id]);
+  /** What staffing `post` in `slot` is worth: 1, plus the room's weight when the room is otherwise unguarded. */
+  const worth = (slot: number, post: string): number => {
+    const p = postById.get(post)!;
+    const gaps = empty.get(slot) ?? [];
+    const unguarded = roomPosts.get(p.room || p.id)!.every((q) => gaps.includes(q));
+    return 1 + (unguarded ? (p.risk === "high" ? 20 : 10) : 0);
+  };
   let added = 0;
   for (const openDay of demand.days) {
     const slots = openDay.slots;
@@ -26,8 +37,8 @@ export function fillGaps(scenario: Scenario, demand: Demand, shifts: Shift[], em
             const end = demand.slots[slots[last]].end;
             if (end - start > rules.maxShiftHours * HOUR + 1000) break;
             if (end - start < rules.minShiftHours * HOUR - 1000) continue;
-            const plan = planWindow(slots.slice(first, last + 1), empty, load, postById, maxStretch, limitSlots);
-            const filled = plan.filter((p) => p !== null).length;
+            const plan = planWindow(slots.slice(first, last + 1), empty, load, postById, maxStretch, limitSlots, worth);
+            const filled = plan.reduce((sum, p, i) => sum + (p === null ? 0 : worth(slots[first + i], p)), 0);
             if (filled === 0) continue;
             const breakMs = plan.reduce((sum, p, i) => sum + (p === null ? demand.slots[slots[first + i]].end - demand.slots[slots[first + i]].start : 0), 0);
             if (end - start > rules.breakAfterHours * HOUR + 1000 && breakMs < rules.breakMinutes * MINUTE - 1000) continue;
@@ -64,7 +75,15 @@ export function fillGaps(scenario: Scenario, demand: Demand, shifts: Shift[], em
 }
 
 /** Which empty post the guard takes in each slot of a window (null = break), keeping rotation and work-stretch limits. */
-function planWindow(window: number[], empty: Map<number, string[]>, load: GuardLoad, postById: Map<string, Scenario["posts"][number]>, maxStretch: number, limitSlots: number): (string | null)[] {
+function planWindow(
+  window: number[],
+  empty: Map<number, string[]>,
+  load: GuardLoad,
+  postById: Map<string, Scenario["posts"][number]>,
+  maxStretch: number,
+  limitSlots: number,
+  worth: (slot: number, post: string) => number,
+): (string | null)[] {
   const plan: (string | null)[] = [];
   let stretch = 0;
   let stay = 0;
@@ -73,8 +92,11 @@ function planWindow(window: number[], empty: Map<number, string[]>, load: GuardL
     const options = (empty.get(slot) ?? []).filter((p) => hasSkills(load.guard.skills, postById.get(p)!.skills));
     let post: string | null = null;
     if (stretch < maxStretch && options.length) {
-      if (previous && options.includes(previous) && stay < limitSlots) post = previous;
-      else post = options.find((p) => p !== previous) ?? null;
+      // The most valuable post (an unguarded room, high-risk first); staying put wins a tie.
+      const top = Math.max(...options.map((p) => worth(slot, p)));
+      const best = options.filter((p) => worth(slot, p) === top);
+      if (previous && best.includes(previous) && stay < limitSlots) post = previous;
+      else post = best.find((p) => p !== previous) ?? options.find((p) => p !== previous) ?? null;
     }
     plan.push(post);
     stretch = post ? stretch + 1 : 0;

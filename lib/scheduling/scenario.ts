@@ -54,6 +54,8 @@ export const scenarioSchema = z
         id: z.string().min(1),
         room: z.string().default(""),
         skills: z.array(z.string()).default([]),
+        // A high-risk room is kept guarded first when not every post can be staffed.
+        risk: z.enum(["standard", "high"]).default("standard"),
       }),
     ),
     guards: z.array(
@@ -63,6 +65,9 @@ export const scenarioSchema = z
         email: z.string().optional(),
         contractHours: z.number().nonnegative().default(40),
         maxHours: z.number().positive().default(48),
+        // Extra hours a week beyond contract the guard accepts; with it, contract + extra is a hard
+        // limit beside maxHours (the legal weekly maximum). Absent: only maxHours limits the week.
+        extraHours: z.number().nonnegative().optional(),
         skills: z.array(z.string()).default([]),
         unavailable: z
           .array(z.object({ start: localDateTime, end: localDateTime }))

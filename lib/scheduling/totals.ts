@@ -4,6 +4,7 @@ import { demandPostHours, type Demand } from "./demand";
 import { paidMs, type Roster } from "./roster";
 import type { Scenario } from "./scenario";
 import { HOUR } from "./time";
+import { weeklyLimitHours } from "./rules/weeklyMax";
 
 export interface Totals {
   postHours: number;
@@ -108,7 +109,7 @@ export function lowerBound(scenario: Scenario, demand: Demand, roster: Roster): 
         filledByWeek[w] += Math.max(0, Math.min(s.end, to) - Math.max(s.start, from)) / HOUR;
       }
     }
-  const plainCapacity = scenario.guards.reduce((sum, g) => sum + Math.min(g.maxHours, rules.overtimeAfterHours), 0);
+  const plainCapacity = scenario.guards.reduce((sum, g) => sum + Math.min(weeklyLimitHours(g), rules.overtimeAfterHours), 0);
   const filled = filledByWeek.reduce((a, b) => a + b, 0);
   const overtime = filledByWeek.reduce((sum, h) => sum + Math.max(0, h - plainCapacity), 0);
   return rules.hourlyRate * (filled + (rules.overtimeFactor - 1) * overtime);

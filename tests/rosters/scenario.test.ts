@@ -2,7 +2,7 @@
 // input contract (scripts/README.md) and the engine's own parser; and a manual reassignment checked by
 // the engine's rule checks.
 import { describe, expect, it } from "vitest";
-import { assembleScenario, guardIdOfKey, guardKey, isMonday, type ScenarioRows } from "@/lib/rosters/scenario";
+import { assembleScenario, DEFAULT_ACCEPTED_EXTRA_HOURS, guardIdOfKey, guardKey, isMonday, type ScenarioRows } from "@/lib/rosters/scenario";
 import { reassign } from "@/lib/rosters/reassign";
 import { engineRoster, storedRoster, withGuardNames } from "@/lib/rosters/stored";
 import { buildDemand } from "@/lib/scheduling/demand";
@@ -25,11 +25,11 @@ const rows: ScenarioRows = {
   // The week of the EU's 2027 spring clock change (last Sunday of March: 28 March, Directive 2000/84/EC).
   startsOn: "2027-03-22",
   posts: [
-    { id: "R4-P1", room: "Textile Gallery", skills: ["high-value"] },
-    { id: "R4-P2", room: "Textile Gallery", skills: [] },
+    { id: "R4-P1", room: "Textile Gallery", skills: ["high-value"], risk: "high" },
+    { id: "R4-P2", room: "Textile Gallery", skills: [], risk: "standard" },
   ],
   guards: [
-    { id: 12, name: "Jonas Okafor", email: "jonas.okafor@example.org", contract_hours: 40, max_hours: 48, skills: [] },
+    { id: 12, name: "Jonas Okafor", email: "jonas.okafor@example.org", contract_hours: 40, max_hours: 48, skills: [], accepted_extra_hours: 4 },
     { id: 3, name: "Mara Lindqvist", email: "guard@example.org", contract_hours: 32, max_hours: 40, skills: ["high-value"] },
   ],
   timeOff: [
@@ -77,8 +77,16 @@ describe("assembleScenario", () => {
     expect((parseLocal("Europe/Berlin", sunday.end) - parseLocal("Europe/Berlin", sunday.start)) / 3_600_000).toBe(23);
   });
 
-  it("keeps posts with their rooms and skills", () => {
+  it("keeps posts with their rooms, skills and risk", () => {
     expect(scenario.posts).toEqual(rows.posts);
+  });
+
+  it("gives each guard the extra hours they accept: their own, else the site's default, else the product's", () => {
+    expect(scenario.guards.find((g) => g.id === "G12")!.extraHours).toBe(4);
+    expect(scenario.guards.find((g) => g.id === "G3")!.extraHours).toBe(DEFAULT_ACCEPTED_EXTRA_HOURS);
+    const withSiteDefault = assembleScenario({ ...rows, site: { ...rows.site, labour_rules: { acceptedExtraHours: 2 } } });
+    expect(withSiteDefault.guards.find((g) => g.id === "G3")!.extraHours).toBe(2);
+    expect(withSiteDefault.guards.find((g) => g.id === "G12")!.extraHours).toBe(4);
   });
 
   it("refuses rows the engine would not accept, naming the field", () => {

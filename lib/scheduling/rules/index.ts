@@ -10,7 +10,7 @@ import { checkRest } from "./rest";
 import { checkRotation } from "./rotation";
 import { checkShiftLength } from "./shiftLength";
 import { checkSkills } from "./skills";
-import { checkWeeklyMax } from "./weeklyMax";
+import { checkContractHours, checkWeeklyMax } from "./weeklyMax";
 
 export const ruleChecks: Record<string, (ctx: RuleContext, roster: Roster) => Violation[]> = {
   coverage: checkCoverage,
@@ -18,6 +18,7 @@ export const ruleChecks: Record<string, (ctx: RuleContext, roster: Roster) => Vi
   "shift-length": checkShiftLength,
   rest: checkRest,
   "weekly-max": checkWeeklyMax,
+  "contract-hours": checkContractHours,
   breaks: checkBreaks,
   rotation: checkRotation,
   skills: checkSkills,

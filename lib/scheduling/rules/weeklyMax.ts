@@ -3,8 +3,24 @@ import { paidMs, type Roster, type Violation } from "../roster";
 import { HOUR } from "../time";
 import { EPSILON_MS, hoursText, type RuleContext } from "./context";
 import { shiftsByGuard } from "./rest";
+import type { Guard } from "../scenario";
 
 export const WEEKLY_MAX = "weekly-max";
+export const CONTRACT_HOURS = "contract-hours";
+
+/**
+ * The hours a guard may be paid in any 7 x 24 real hours: the legal maximum (maxHours) and, when
+ * the guard states the extra hours they accept, their contract plus that extra. The engine's
+ * blocker, the rule checks, the explanations and the cost bound all read it from here.
+ */
+export function weeklyLimitHours(guard: Pick<Guard, "maxHours" | "contractHours" | "extraHours">): number {
+  return guard.extraHours === undefined ? guard.maxHours : Math.min(guard.maxHours, guard.contractHours + guard.extraHours);
+}
+
+/** Which limit binds a guard's week: the contract (plus accepted extra) or the legal maximum. */
+export function bindingLimit(guard: Pick<Guard, "maxHours" | "contractHours" | "extraHours">): typeof CONTRACT_HOURS | typeof WEEKLY_MAX {
+  return guard.extraHours !== undefined && guard.contractHours + guard.extraHours < guard.maxHours ? CONTRACT_HOURS : WEEKLY_MAX;
+}
 const WEEK = 7 * 24 * HOUR;
 
 /** Paid intervals of a guard's shifts (segments, plus breaks when paid). */
@@ -23,6 +39,26 @@ export function maxPaidInAnyWeek(intervals: { start: number; end: number }[]): {
     if (ms > best.ms) best = { ms, from };
   }
   return best;
+}
+
+/** Hard rule: paid hours in any 7 days stay within the guard's contract plus the extra they accept. */
+export function checkContractHours(ctx: RuleContext, roster: Roster): Violation[] {
+  const violations: Violation[] = [];
+  for (const [guard, shifts] of shiftsByGuard(roster)) {
+    const g = ctx.guards.get(guard);
+    if (!g || g.extraHours === undefined) continue;
+    const limit = (g.contractHours + g.extraHours) * HOUR;
+    const worst = maxPaidInAnyWeek(paidIntervals(shifts, ctx.scenario.rules.paidBreaks));
+    if (worst.ms > limit + EPSILON_MS)
+      violations.push({
+        rule: CONTRACT_HOURS,
+        guard,
+        start: worst.from,
+        end: worst.from + WEEK,
+        message: `${guard} is paid for ${hoursText(worst.ms)} in the 7 days from ${ctx.at(worst.from)}, above their contract of ${g.contractHours} h plus the ${g.extraHours} h extra they accept; move a shift to another guard`,
+      });
+  }
+  return violations;
 }
 
 export function checkWeeklyMax(ctx: RuleContext, roster: Roster): Violation[] {

@@ -10,14 +10,16 @@ import { refusalsAsProblems } from "../../_shared/problem";
 type Context = { params: Promise<{ id: string }> };
 
 /**
- * POST /api/rosters/[id]/publish { revision }: the draft becomes the week's next published version
- * and every guard on it is mailed (a queued job). 409 when the draft changed since it was loaded.
+ * POST /api/rosters/[id]/publish { revision, confirmation?, note? }: the draft becomes the week's
+ * next published version and every guard on it is mailed (a queued job). 409 when the draft changed
+ * since it was loaded; 422 confirmation-needed (with the review) when a room stands empty in an open
+ * hour and the room's name was not typed or no note given.
  */
 export const POST = route<Context>(async (request: NextRequest, context) => {
   const user = await requireRole(request, "rosters:publish");
   const { id } = parseParams(await context.params, rosterIdSchema);
-  const { revision } = await parseBody(request, publishRequestSchema);
-  const publication = await refusalsAsProblems(() => publishDraft(db, { rosterId: id, revision, userId: user.id }));
+  const { revision, confirmation, note } = await parseBody(request, publishRequestSchema);
+  const publication = await refusalsAsProblems(() => publishDraft(db, { rosterId: id, revision, userId: user.id, confirmation, note }));
   return NextResponse.json(
     {
       roster: { id: publication.roster.id, version: publication.roster.version, publishedAt: publication.roster.published_at },

@@ -1,0 +1,135 @@
+// What a roster leaves unguarded and whom it works past their contract, for the publish review and
+// the staffing page: rooms open to visitors with no guard at any of their posts (by the minute, in
+// stretches), unfilled post-hours per room, and paid hours per guard against contract and limits.
+import { buildDemand, isPostClosed, type Demand } from "./demand";
+import { paidMs, type Roster } from "./roster";
+import type { Scenario } from "./scenario";
+import { HOUR } from "./time";
+import { weeklyLimitHours } from "./rules/weeklyMax";
+
+export type Risk = "standard" | "high";
+
+/** A stretch of time in which a room open to visitors has no guard at any of its posts. */
+export interface EmptyRoomStretch {
+  room: string;
+  risk: Risk;
+  start: number;
+  end: number;
+}
+
+export interface RoomShortfall {
+  room: string;
+  risk: Risk;
+  /** Unfilled post-hours of the room's posts. */
+  postHours: number;
+  /** Hours the room stands empty while open. */
+  emptyHours: number;
+}
+
+export interface GuardHours {
+  guard: string;
+  contractHours: number;
+  /** Contract plus the extra hours the guard accepts (or the legal maximum when smaller). */
+  limitHours: number;
+  maxHours: number;
+  /** The most paid hours in one roster week (7 scenario days). */
+  plannedHours: number;
+}
+
+interface Interval {
+  start: number;
+  end: number;
+}
+
+function merge(intervals: Interval[]): Interval[] {
+  const sorted = [...intervals].sort((a, b) => a.start - b.start);
+  const out: Interval[] = [];
+  for (const i of sorted) {
+    const last = out[out.length - 1];
+    if (last && i.start <= last.end) last.end = Math.max(last.end, i.end);
+    else out.push({ ...i });
+  }
+  return out;
+}
+
+function subtract(from: Interval[], minus: Interval[]): Interval[] {
+  const out: Interval[] = [];
+  for (const a of from) {
+    let pieces = [{ ...a }];
+    for (const b of minus) {
+      pieces = pieces.flatMap((p) => {
+        if (b.end <= p.start || b.start >= p.end) return [p];
+        const kept: Interval[] = [];
+        if (b.start > p.start) kept.push({ start: p.start, end: b.start });
+        if (b.end < p.end) kept.push({ start: b.end, end: p.end });
+        return kept;
+      });
+    }
+    out.push(...pieces);
+  }
+  return out.filter((i) => i.end - i.start > 1000);
+}
+
+/** The posts of each room (a post without a room name is a room of its own). */
+export function roomsOf(scenario: Scenario): Map<string, { risk: Risk; posts: string[] }> {
+  const rooms = new Map<string, { risk: Risk; posts: string[] }>();
+  for (const post of scenario.posts) {
+    const name = post.room || post.id;
+    const room = rooms.get(name) ?? { risk: "standard" as Risk, posts: [] };
+    room.posts.push(post.id);
+    if (post.risk === "high") room.risk = "high";
+    rooms.set(name, room);
+  }
+  return rooms;
+}
+
+/**
+ * Every stretch in which a room is open (some post of it is open) and no guard stands at any of its
+ * posts, high-risk rooms first, then by room and time.
+ */
+export function emptyRoomStretches(scenario: Scenario, roster: Roster, demand: Demand = buildDemand(scenario)): EmptyRoomStretch[] {
+  const out: EmptyRoomStretch[] = [];
+  for (const [room, { risk, posts }] of roomsOf(scenario)) {
+    const open = merge(demand.slots.filter((slot) => posts.some((p) => !isPostClosed(demand, p, slot.start, slot.end))).map((s) => ({ start: s.start, end: s.end })));
+    const postSet = new Set(posts);
+    const guarded = merge(roster.shifts.flatMap((shift) => shift.segments.filter((s) => postSet.has(s.post)).map((s) => ({ start: s.start, end: s.end }))));
+    for (const gap of subtract(open, guarded)) out.push({ room, risk, ...gap });
+  }
+  return out.sort((a, b) => (a.risk === b.risk ? 0 : a.risk === "high" ? -1 : 1) || a.room.localeCompare(b.room) || a.start - b.start);
+}
+
+/** Unfilled post-hours and empty hours per room, only rooms with either; high-risk rooms first. */
+export function roomShortfalls(scenario: Scenario, roster: Roster, empty: EmptyRoomStretch[]): RoomShortfall[] {
+  const rooms = roomsOf(scenario);
+  const roomOfPost = new Map<string, string>();
+  for (const [name, room] of rooms) for (const p of room.posts) roomOfPost.set(p, name);
+  const byRoom = new Map<string, RoomShortfall>();
+  const entry = (room: string) => {
+    const found = byRoom.get(room) ?? { room, risk: rooms.get(room)?.risk ?? "standard", postHours: 0, emptyHours: 0 };
+    byRoom.set(room, found);
+    return found;
+  };
+  for (const u of roster.unfilled) entry(roomOfPost.get(u.post) ?? u.post).postHours += (u.end - u.start) / HOUR;
+  for (const e of empty) entry(e.room).emptyHours += (e.end - e.start) / HOUR;
+  return [...byRoom.values()].sort((a, b) => (a.risk === b.risk ? 0 : a.risk === "high" ? -1 : 1) || b.postHours - a.postHours || a.room.localeCompare(b.room));
+}
+
+/** Paid hours of each guard on the roster in their busiest roster week, with their contract and limits. */
+export function guardHours(scenario: Scenario, roster: Roster, demand: Demand = buildDemand(scenario)): GuardHours[] {
+  const weeks = Math.max(1, Math.ceil(scenario.days / 7));
+  const perWeek = new Map<string, number[]>();
+  for (const shift of roster.shifts) {
+    const day = demand.dayStarts.filter((start) => start <= shift.start).length - 1;
+    const week = Math.min(weeks - 1, Math.max(0, Math.floor(day / 7)));
+    const hours = perWeek.get(shift.guard) ?? new Array<number>(weeks).fill(0);
+    hours[week] += paidMs(shift, scenario.rules.paidBreaks) / HOUR;
+    perWeek.set(shift.guard, hours);
+  }
+  return scenario.guards.map((g) => ({
+    guard: g.id,
+    contractHours: g.contractHours,
+    limitHours: weeklyLimitHours(g),
+    maxHours: g.maxHours,
+    plannedHours: Math.round(Math.max(0, ...(perWeek.get(g.id) ?? [0])) * 100) / 100,
+  }));
+}
