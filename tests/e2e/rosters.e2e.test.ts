@@ -147,13 +147,17 @@ describe("operations builds and publishes a week; the guard sees it", () => {
       await shown(page.getByTestId("draft-state").getByText(new RegExp(`revision ${revision.revision}\\)`)));
       await shown(page.getByTestId("violations").getByText("None: every shift keeps every rule."));
       await shown(page.getByTestId("roster-grid"));
-      await page.getByRole("button", { name: "Publish", exact: true }).click();
+      await page.getByRole("button", { name: "Publish…", exact: true }).click();
+      // The review comes first: the demo week keeps a guard in every open room.
+      const review = page.getByTestId("publish-review");
+      await shown(review.getByText("Every room open to visitors has a guard in every open hour."), 30_000);
+      await review.getByRole("button", { name: "Publish and e-mail guards" }).click();
       await shown(page.getByText(`Published version ${expectedVersion}; e-mailing every guard on it.`), 30_000);
       await shown(page.getByRole("button", { name: `Version ${expectedVersion} (current)` }), 30_000);
       // The header says which version counts now, and that the draft holds nothing newer.
       await shown(page.getByTestId("published-version").getByText(new RegExp(`^Published version ${expectedVersion} on `)), 30_000);
       await shown(page.getByTestId("draft-state").getByText(`The draft (revision ${revision.revision}) is what version ${expectedVersion} holds.`, { exact: true }));
-      await expect(page.getByRole("button", { name: "Publish", exact: true }).isDisabled()).resolves.toBe(true);
+      await expect(page.getByRole("button", { name: "Publish…", exact: true }).isDisabled()).resolves.toBe(true);
       // The roster list holds the week once, its draft and versions beneath it.
       await page.reload();
       const listed = page.getByTestId(`roster-week-${WEEK}`);

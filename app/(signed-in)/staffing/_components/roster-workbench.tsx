@@ -11,6 +11,7 @@ import { isMonday } from "@/lib/rosters/scenario";
 import type { JobState, RosterView, WeekOverview } from "./roster-types";
 import { RosterGrid } from "./roster-grid";
 import { RosterSummary } from "./roster-summary";
+import { PublishReviewPanel } from "./publish-review";
 
 function shiftDate(date: string, days: number): string {
   const [y, m, d] = date.split("-").map(Number);
@@ -37,6 +38,8 @@ export function RosterWorkbench({ initialWeek, initialRosterId = null }: { initi
   const [buildJobId, setBuildJobId] = useState<number | null>(null);
   const [mailJobId, setMailJobId] = useState<number | null>(null);
   const [interactive, setInteractive] = useState(false);
+  // Publishing opens the review first; the draft is published from there.
+  const [reviewing, setReviewing] = useState(false);
   useEffect(() => setInteractive(true), []);
 
   const overview = useQuery({
@@ -75,9 +78,12 @@ export function RosterWorkbench({ initialWeek, initialRosterId = null }: { initi
     onSuccess: ({ job }) => setBuildJobId(job.id),
   });
   const publish = useMutation({
-    mutationFn: (draft: RosterView) =>
-      apiFetch<{ roster: { id: number; version: number }; mailJob: { id: number } }>(`/api/rosters/${draft.id}/publish`, { body: { revision: draft.revision } }),
+    mutationFn: ({ draft, confirmation, note }: { draft: RosterView; confirmation?: string; note?: string }) =>
+      apiFetch<{ roster: { id: number; version: number }; mailJob: { id: number } }>(`/api/rosters/${draft.id}/publish`, {
+        body: { revision: draft.revision, ...(confirmation !== undefined ? { confirmation } : {}), ...(note !== undefined ? { note } : {}) },
+      }),
     onSuccess: ({ mailJob: job }) => {
+      setReviewing(false);
       setMailJobId(job.id);
       void queryClient.invalidateQueries({ queryKey: ["roster-week", week] });
       router.refresh();
@@ -92,6 +98,7 @@ export function RosterWorkbench({ initialWeek, initialRosterId = null }: { initi
       setShownRosterId(null);
       setBuildJobId(null);
       setMailJobId(null);
+      setReviewing(false);
       build.reset();
       publish.reset();
     }
@@ -159,13 +166,25 @@ export function RosterWorkbench({ initialWeek, initialRosterId = null }: { initi
               <button
                 type="button"
                 className="button"
-                disabled={!interactive || publish.isPending || roster.isFetching || shown.violations.length > 0 || draftPublished}
-                onClick={() => publish.mutate(shown)}
+                disabled={!interactive || publish.isPending || roster.isFetching || shown.violations.length > 0 || draftPublished || reviewing}
+                aria-expanded={reviewing}
+                onClick={() => {
+                  publish.reset();
+                  setReviewing(true);
+                }}
               >
-                Publish
+                Publish…
               </button>
             )}
           </div>
+          {shown.status === "draft" && reviewing && !draftPublished && (
+            <PublishReviewPanel
+              roster={shown}
+              busy={publish.isPending}
+              onPublish={(confirmation) => publish.mutate({ draft: shown, ...confirmation })}
+              onCancel={() => setReviewing(false)}
+            />
+          )}
           {shown.status === "draft" && draftPublished && (
             <p className="text-sm text-stone-700">This revision is published; reassign or rebuild to make a new version.</p>
           )}
