@@ -8,9 +8,12 @@ import { openingOf } from "@/lib/scheduling/demand";
 import { addLocalDays } from "@/lib/scheduling/time";
 import { rosterScenario } from "./edit";
 import { ROSTER_BUILD_JOB } from "./publish";
-import { guardKey } from "./scenario";
+import { guardIdOfKey, guardKey } from "./scenario";
 import type { PublishReview } from "./review";
 import { postLabel, roomsOfScenario } from "./shift-events";
+import { buildDemand } from "@/lib/scheduling/demand";
+import { emptyRoomStretches, guardWeeks, type GuardWeek } from "@/lib/scheduling/safety";
+import { engineRoster } from "./stored";
 
 export interface RosterView {
   id: number;
@@ -36,6 +39,10 @@ export interface RosterView {
   unfilled: (RosterUnfilled & { label: string })[];
   totals: RosterTotals | null;
   violations: RosterViolation[];
+  /** Rooms open to visitors with no guard at any of their posts, by stretch (propose closing them). */
+  emptyRooms: { room: string; risk: "standard" | "high"; start: string; end: string }[];
+  /** Every guard on the roster: contract, planned hours, overtime, late shifts, weekend days, run, flags. */
+  guardWeeks: (Omit<GuardWeek, "guard"> & { guardId: number; name: string })[];
 }
 
 export async function rosterView(db: Kysely<Database>, rosterId: number): Promise<RosterView | null> {
@@ -46,6 +53,10 @@ export async function rosterView(db: Kysely<Database>, rosterId: number): Promis
   const scenario = rosterScenario(roster);
   const rooms = roomsOfScenario(scenario);
   const onStaff = new Set(scenario.guards.map((g) => g.id));
+  const demand = buildDemand(scenario);
+  const engine = engineRoster({ shifts, unfilled: roster.unfilled });
+  const names = new Map(guards.map((g) => [g.id, g.name]));
+  const iso = (instant: number) => new Date(instant).toISOString();
   return {
     id: roster.id,
     siteId: site.id,
@@ -79,6 +90,11 @@ export async function rosterView(db: Kysely<Database>, rosterId: number): Promis
     unfilled: roster.unfilled.map((u) => ({ ...u, label: postLabel(u.post, rooms) })),
     totals: roster.totals,
     violations: roster.violations,
+    emptyRooms: emptyRoomStretches(scenario, engine, demand).map((e) => ({ room: e.room, risk: e.risk, start: iso(e.start), end: iso(e.end) })),
+    guardWeeks: guardWeeks(scenario, engine, demand).map(({ guard, ...week }) => {
+      const guardId = guardIdOfKey(guard) ?? 0;
+      return { ...week, guardId, name: names.get(guardId) ?? guard };
+    }),
   };
 }
 

@@ -4,7 +4,7 @@
 import { buildDemand, isPostClosed, type Demand } from "./demand";
 import { paidMs, type Roster } from "./roster";
 import type { Scenario } from "./scenario";
-import { HOUR } from "./time";
+import { formatClock, HOUR, weekdayIndex } from "./time";
 import { weeklyLimitHours } from "./rules/weeklyMax";
 
 export type Risk = "standard" | "high";
@@ -132,4 +132,57 @@ export function guardHours(scenario: Scenario, roster: Roster, demand: Demand = 
     maxHours: g.maxHours,
     plannedHours: Math.round(Math.max(0, ...(perWeek.get(g.id) ?? [0])) * 100) / 100,
   }));
+}
+
+/** One guard's week as the staffing page's table shows it. */
+export interface GuardWeek extends GuardHours {
+  /** Hours past overtimeAfterHours, summed over roster weeks. */
+  overtimeHours: number;
+  /** Shifts ending at 20:00 or later (or past midnight). */
+  lateShifts: number;
+  /** Saturdays and Sundays worked. */
+  weekendDays: number;
+  /** The longest run of consecutive days worked. */
+  daysInARow: number;
+  /** Plain-word flags: over contract, over the limit, at the legal maximum, six or more days in a row. */
+  flags: string[];
+}
+
+/** Every guard of the scenario with their hours, overtime, late shifts, weekend days and longest run. */
+export function guardWeeks(scenario: Scenario, roster: Roster, demand: Demand = buildDemand(scenario)): GuardWeek[] {
+  const zone = scenario.timezone;
+  const rules = scenario.rules;
+  const weeks = Math.max(1, Math.ceil(scenario.days / 7));
+  const dayOf = (instant: number) => Math.max(0, demand.dayStarts.filter((start) => start <= instant).length - 1);
+  return guardHours(scenario, roster, demand).map((hours) => {
+    const own = roster.shifts.filter((s) => s.guard === hours.guard);
+    const perWeek = new Array<number>(weeks).fill(0);
+    const days = new Set<number>();
+    let late = 0;
+    for (const shift of own) {
+      const day = dayOf(shift.start);
+      perWeek[Math.min(weeks - 1, Math.floor(day / 7))] += paidMs(shift, rules.paidBreaks) / HOUR;
+      days.add(day);
+      const endClock = formatClock(zone, shift.end);
+      if (endClock >= "20:00" || endClock < formatClock(zone, shift.start)) late++;
+    }
+    const dates = [...days].sort((a, b) => a - b);
+    let run = 0;
+    let longest = 0;
+    dates.forEach((d, i) => {
+      run = i > 0 && d === dates[i - 1]! + 1 ? run + 1 : 1;
+      longest = Math.max(longest, run);
+    });
+    const weekendDays = dates.filter((d) => {
+      const date = demand.days[d]?.date;
+      return date !== undefined && weekdayIndex(zone, date) >= 5;
+    }).length;
+    const overtime = perWeek.reduce((sum, h) => sum + Math.max(0, h - rules.overtimeAfterHours), 0);
+    const flags: string[] = [];
+    if (hours.plannedHours > hours.limitHours + 1e-6) flags.push("over the limit");
+    else if (hours.plannedHours > hours.contractHours + 1e-6) flags.push("over contract");
+    if (hours.plannedHours >= hours.maxHours - 1e-6) flags.push("at the legal maximum");
+    if (longest >= 6) flags.push(`${longest} days in a row`);
+    return { ...hours, overtimeHours: Math.round(overtime * 100) / 100, lateShifts: late, weekendDays, daysInARow: longest, flags };
+  });
 }

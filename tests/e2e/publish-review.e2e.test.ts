@@ -70,6 +70,10 @@ describe("the publish review", () => {
         const publish = page.getByRole("button", { name: "Publish…", exact: true });
         await shown(publish, 30_000);
         await page.waitForFunction(() => [...document.querySelectorAll("button")].some((b) => b.textContent === "Publish…" && !b.disabled), null, { timeout: 30_000 });
+        // The staffing page says which rooms stand empty, and proposes closing them.
+        const emptyList = page.getByTestId("empty-rooms");
+        await shown(emptyList.getByText("Exhibition Hall East").first());
+        await shown(emptyList.getByText(/Proposal: close these rooms to visitors/));
         // By keyboard: focus the button and press Enter.
         await publish.focus();
         await page.keyboard.press("Enter");

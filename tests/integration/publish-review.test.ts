@@ -17,6 +17,7 @@ import { POST as publishRoute } from "@/app/api/rosters/[id]/publish/route";
 import { buildDraftRoster } from "@/lib/rosters/build";
 import { ROSTER_MAIL_JOB } from "@/lib/rosters/publish";
 import type { PublishReview } from "@/lib/rosters/review";
+import { rosterView } from "@/lib/rosters/view";
 import { requireDatabaseUrl } from "./support/database";
 import { mondayAhead } from "./support/rosters";
 import { signedRequest, userByEmail, type SignedUser } from "./support/signed-request";
@@ -97,6 +98,24 @@ describe("publishing a week that leaves rooms empty", () => {
     expect(body.review.emptyRooms.map((r) => r.room).sort()).toEqual(["Exhibition Hall East", "Exhibition Hall West", "Poster Corridor", "Textile Gallery"]);
     for (const room of body.review.emptyRooms) for (const h of room.hours) expect(Date.parse(h.end)).toBeGreaterThan(Date.parse(h.start));
     expect((await review(operations, 2_000_000_000)).status).toBe(404);
+  });
+
+  it("the staffing page's view lists the empty rooms by stretch and every guard's week", async () => {
+    const view = (await rosterView(db, draftId))!;
+    expect([...new Set(view.emptyRooms.map((e) => e.room))].sort()).toEqual(["Exhibition Hall East", "Exhibition Hall West", "Poster Corridor", "Textile Gallery"]);
+    expect(view.emptyRooms[0]).toMatchObject({ room: "Exhibition Hall East", risk: "high" });
+    const guards = await db.selectFrom("guards").select(["id", "contract_hours"]).where("site_id", "=", siteId).execute();
+    expect(view.guardWeeks.map((g) => g.guardId).sort((a, b) => a - b)).toEqual(guards.map((g) => g.id).sort((a, b) => a - b));
+    for (const g of view.guardWeeks) {
+      expect(g.contractHours).toBe(Number(guards.find((x) => x.id === g.guardId)!.contract_hours));
+      expect(g.plannedHours).toBeLessThanOrEqual(g.limitHours);
+      expect(g.flags.includes("over contract")).toBe(g.plannedHours > g.contractHours);
+      expect(g.daysInARow).toBeLessThanOrEqual(7);
+    }
+    // Paid hours of the guards add up to the shifts' paid time.
+    const shifts = await db.selectFrom("shifts").select(["starts_at", "ends_at", "breaks"]).where("roster_id", "=", draftId).execute();
+    const paid = shifts.reduce((sum, s) => sum + (s.ends_at.getTime() - s.starts_at.getTime() - s.breaks.reduce((b, x) => b + Date.parse(x.end) - Date.parse(x.start), 0)), 0) / 3_600_000;
+    expect(view.guardWeeks.reduce((sum, g) => sum + g.plannedHours, 0)).toBeCloseTo(paid, 1);
   });
 
   it("refuses without the typed room name and a note, publishing and mailing nothing", async () => {

@@ -3,6 +3,7 @@
 import { TZDate } from "@date-fns/tz";
 import { format } from "date-fns";
 import type { RosterView } from "./roster-types";
+import { GuardWeeksTable } from "./guard-weeks-table";
 
 const money = (value: number) => value.toLocaleString("en-GB", { minimumFractionDigits: 2, maximumFractionDigits: 2 });
 
@@ -31,6 +32,27 @@ export function RosterSummary({ roster }: { roster: RosterView }) {
           <Total term="Gap to bound" value={`${(totals.gap * 100).toFixed(1)} %`} />
         </dl>
       )}
+      <div data-testid="empty-rooms">
+        <h3>Rooms without a guard</h3>
+        {roster.emptyRooms.length === 0 ? (
+          <p className="text-sm">None: every room open to visitors has a guard in every open hour.</p>
+        ) : (
+          <>
+            <ul className="list-disc pl-5 text-sm text-alert-700">
+              {roster.emptyRooms.map((e, i) => (
+                <li key={i}>
+                  <span className="font-semibold">{e.room}</span>
+                  {e.risk === "high" ? " (high risk)" : ""}: {at(e.start, "EEE d MMM HH:mm")}–{at(e.end, "HH:mm")}
+                </li>
+              ))}
+            </ul>
+            <p className="text-sm text-stone-700">
+              Proposal: close these rooms to visitors for those hours, or add guards and rebuild. Publishing such a week asks you to confirm it.
+            </p>
+          </>
+        )}
+      </div>
+      <GuardWeeksTable roster={roster} />
       <div>
         <h3>Rule violations</h3>
         {roster.violations.length === 0 ? (
