@@ -9,6 +9,7 @@ import { addLocalDays } from "@/lib/scheduling/time";
 import { buildRosterOffThread } from "./engine-thread";
 import { assembleScenario, ROSTER_DAYS, type PostRow } from "./scenario";
 import { storedRoster, storedTotals, storedViolations } from "./stored";
+import { postLabels } from "./shift-events";
 
 export interface BuildRequest {
   siteId: number;
@@ -81,7 +82,7 @@ export async function buildDraftRoster(db: Kysely<Database>, request: BuildReque
       shifts: stored.shifts,
       unfilled: stored.unfilled,
       totals: storedTotals(result.totals),
-      violations: storedViolations(result.violations, guardNames),
+      violations: storedViolations(result.violations, guardNames, postLabels(scenario)),
       createdBy: request.userId,
     }),
   );

@@ -9,9 +9,11 @@ import { buildDemand } from "@/lib/scheduling/demand";
 import { checkRoster, ruleContext } from "@/lib/scheduling/rules";
 import { parseScenario, type Scenario } from "@/lib/scheduling/scenario";
 import { computeTotals } from "@/lib/scheduling/totals";
+import { paidMs, type Roster, type Violation } from "@/lib/scheduling/roster";
 import { RosterProblem } from "./problem";
+import { postLabels } from "./shift-events";
 import { reassign, type ReassignSource } from "./reassign";
-import { guardKey } from "./scenario";
+import { guardIdOfKey, guardKey } from "./scenario";
 import { engineRoster, storedRoster, storedTotals, storedViolations, withGuardNames } from "./stored";
 
 export interface ReassignRequest {
@@ -45,38 +47,126 @@ export async function lockDraft(trx: Kysely<Database>, rosterId: number, revisio
   return roster;
 }
 
+/** What a reassignment would do: the new roster and its violations, or why it cannot be made. */
+type ReassignCheck =
+  | { ok: true; roster: Roster; after: Violation[] }
+  | { ok: false; code: "cannot-reassign" | "breaks-rule"; message: string; violations?: ReturnType<typeof storedViolations> };
+
+interface EditContext {
+  scenario: Scenario;
+  demand: ReturnType<typeof buildDemand>;
+  context: ReturnType<typeof ruleContext>;
+  before: Roster;
+  known: Set<string>;
+  names: Map<number, string>;
+  labels: Map<string, string>;
+}
+
+function sourceOf(from: ReassignRequest["from"]): ReassignSource {
+  const start = new Date(from.start).getTime();
+  return from.guardId === null ? { kind: "unfilled", post: from.post, start } : { kind: "segment", guard: guardKey(from.guardId), post: from.post, start };
+}
+
+/** The same checks the engine's rules make, on the roster as it would be after the change. */
+function checkReassign(edit: EditContext, source: ReassignSource, toKey: string): ReassignCheck {
+  const outcome = reassign(edit.before, source, toKey, edit.scenario.rules.minRestHours);
+  if (!outcome.ok) return { ok: false, code: "cannot-reassign", message: withGuardNames(outcome.message, edit.names, edit.labels) };
+  const after = checkRoster(edit.scenario, outcome.roster, edit.context);
+  const broken = after.filter((v) => !edit.known.has(`${v.rule}|${v.message}`));
+  if (broken.length > 0) {
+    const violations = storedViolations(broken, edit.names, edit.labels);
+    // Name every rule the edit would break (a person fixes them together), the first three in full.
+    const named = violations.slice(0, 3).map((v) => `${v.message} (rule ${v.rule})`);
+    const more = violations.length > 3 ? `; and ${violations.length - 3} more` : "";
+    return { ok: false, code: "breaks-rule", message: `Not changed: ${named.join("; ")}${more}.`, violations };
+  }
+  return { ok: true, roster: outcome.roster, after };
+}
+
+async function editContext(trx: Kysely<Database>, roster: RosterRow): Promise<EditContext> {
+  const scenario = rosterScenario(roster);
+  const guards = await guardsOfSite(trx, roster.site_id);
+  const rows = await shiftsOfRoster(trx, roster.id);
+  const before = engineRoster({ shifts: rows, unfilled: roster.unfilled });
+  const demand = buildDemand(scenario);
+  const context = ruleContext(scenario, demand);
+  return {
+    scenario,
+    demand,
+    context,
+    before,
+    known: new Set(checkRoster(scenario, before, context).map((v) => `${v.rule}|${v.message}`)),
+    names: new Map(guards.map((g) => [g.id, g.name])),
+    labels: postLabels(scenario),
+  };
+}
+
+/** A guard the stretch could go to: whether the rules allow it, and if not, the rule and why. */
+export interface ReassignOption {
+  guardId: number;
+  name: string;
+  /** Paid hours on this roster so far (before the change). */
+  hoursSoFar: number;
+  contractHours: number;
+  ok: boolean;
+  /** The rule that matters most of those the change would break (skills before shift length, …). */
+  rule: string | null;
+  reason: string | null;
+  /** Every rule the change would break. */
+  rules: string[];
+}
+
+/** Which broken rule to name first: what the person is, then when they may work, then shapes of shifts. */
+const RULE_ORDER = ["skills", "availability", "rest", "contract-hours", "weekly-max", "one-place", "shift-length", "breaks", "rotation", "coverage"];
+const ruleRank = (rule: string) => (RULE_ORDER.indexOf(rule) === -1 ? RULE_ORDER.length : RULE_ORDER.indexOf(rule));
+
+/**
+ * Every guard on the roster's staff but the stretch's own, checked as if the stretch were given to
+ * them: those who can take it first (fewest hours so far first), then the others with the first rule
+ * they would break.
+ */
+export async function reassignOptions(db: Kysely<Database>, rosterId: number, from: ReassignRequest["from"]): Promise<ReassignOption[]> {
+  const roster = await db.selectFrom("rosters").selectAll().where("id", "=", rosterId).executeTakeFirst();
+  if (!roster) throw new RosterProblem(404, "not-found", `No roster with id ${rosterId}.`);
+  if (roster.status !== "draft") throw new RosterProblem(409, "not-a-draft", `Roster ${rosterId} is published version ${roster.version}; a published version never changes. Edit the week's draft instead.`);
+  const edit = await editContext(db, roster);
+  const source = sourceOf(from);
+  const paid = new Map<string, number>();
+  for (const shift of edit.before.shifts) paid.set(shift.guard, (paid.get(shift.guard) ?? 0) + paidMs(shift, edit.scenario.rules.paidBreaks) / 3_600_000);
+  const options = edit.scenario.guards
+    .filter((g) => from.guardId === null || g.id !== guardKey(from.guardId))
+    .map((g) => {
+      const guardId = guardIdOfKey(g.id) ?? 0;
+      const check = checkReassign(edit, source, g.id);
+      const broken = check.ok ? [] : [...(check.violations ?? [])].sort((a, b) => ruleRank(a.rule) - ruleRank(b.rule));
+      const first = broken[0];
+      return {
+        guardId,
+        name: edit.names.get(guardId) ?? g.id,
+        hoursSoFar: Math.round((paid.get(g.id) ?? 0) * 100) / 100,
+        contractHours: g.contractHours,
+        ok: check.ok,
+        // A guard already standing elsewhere then breaks "one place at a time" before anything else.
+        rule: check.ok ? null : (first?.rule ?? "one-place"),
+        reason: check.ok ? null : (first?.message ?? check.message),
+        rules: check.ok ? [] : broken.length ? [...new Set(broken.map((v) => v.rule))] : ["one-place"],
+      };
+    });
+  return options.sort((a, b) => Number(b.ok) - Number(a.ok) || a.hoursSoFar - b.hoursSoFar || a.name.localeCompare(b.name));
+}
+
 export async function reassignInDraft(db: Kysely<Database>, request: ReassignRequest): Promise<{ revision: number }> {
   return db.transaction().execute(async (trx) => {
     const roster = await lockDraft(trx, request.rosterId, request.revision);
-    const scenario = rosterScenario(roster);
     const toKey = guardKey(request.toGuardId);
-    const guards = await guardsOfSite(trx, roster.site_id);
-    const names = new Map(guards.map((g) => [g.id, g.name]));
+    const edit = await editContext(trx, roster);
+    const { scenario, demand, names, labels } = edit;
     if (!scenario.guards.some((g) => g.id === toKey)) {
       throw new RosterProblem(422, "unknown-guard", `Guard ${request.toGuardId} is not on this roster's staff list; rebuild the roster to include new guards.`, { field: "toGuardId" });
     }
-    const rows = await shiftsOfRoster(trx, roster.id);
-    const before = engineRoster({ shifts: rows, unfilled: roster.unfilled });
-    const start = new Date(request.from.start).getTime();
-    const source: ReassignSource =
-      request.from.guardId === null
-        ? { kind: "unfilled", post: request.from.post, start }
-        : { kind: "segment", guard: guardKey(request.from.guardId), post: request.from.post, start };
-    const outcome = reassign(before, source, toKey, scenario.rules.minRestHours);
-    if (!outcome.ok) throw new RosterProblem(422, "cannot-reassign", withGuardNames(outcome.message, names));
-
-    const demand = buildDemand(scenario);
-    const context = ruleContext(scenario, demand);
-    const known = new Set(checkRoster(scenario, before, context).map((v) => `${v.rule}|${v.message}`));
-    const after = checkRoster(scenario, outcome.roster, context);
-    const broken = after.filter((v) => !known.has(`${v.rule}|${v.message}`));
-    if (broken.length > 0) {
-      const violations = storedViolations(broken, names);
-      // Name every rule the edit would break (a person fixes them together), the first three in full.
-      const named = violations.slice(0, 3).map((v) => `${v.message} (rule ${v.rule})`);
-      const more = violations.length > 3 ? `; and ${violations.length - 3} more` : "";
-      throw new RosterProblem(422, "breaks-rule", `Not changed: ${named.join("; ")}${more}.`, { violations });
-    }
+    const outcome = checkReassign(edit, sourceOf(request.from), toKey);
+    if (!outcome.ok) throw new RosterProblem(422, outcome.code, outcome.message, outcome.violations ? { violations: outcome.violations } : {});
+    const after = outcome.after;
 
     const stored = storedRoster(outcome.roster);
     await trx.deleteFrom("shifts").where("roster_id", "=", roster.id).execute();
@@ -87,7 +177,7 @@ export async function reassignInDraft(db: Kysely<Database>, request: ReassignReq
         revision: sql<number>`revision + 1`,
         unfilled: toJson(stored.unfilled),
         totals: toJson(storedTotals(computeTotals(scenario, demand, outcome.roster))),
-        violations: toJson(storedViolations(after, names)),
+        violations: toJson(storedViolations(after, names, labels)),
       })
       .where("id", "=", roster.id)
       .returning("revision")

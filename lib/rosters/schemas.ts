@@ -47,6 +47,13 @@ export const reassignRequestSchema = z.object({
 });
 export type ReassignRequestBody = z.infer<typeof reassignRequestSchema>;
 
+/** GET /api/rosters/[id]/reassign?post=&start=[&guardId=]: the stretch whose possible guards to list. */
+export const reassignOptionsQuerySchema = z.object({
+  guardId: idParam("guardId").optional(),
+  post: z.string().min(1, "post is required").max(100),
+  start: z.iso.datetime({ offset: true, error: "start must be an ISO date-time, e.g. 2027-03-23T09:00:00.000Z" }),
+});
+
 /** A guard's request for days off: first and last day, inclusive, and a note for operations. */
 export const timeOffRequestSchema = z
   .object({

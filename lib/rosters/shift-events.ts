@@ -21,6 +21,12 @@ export function postLabel(postId: string, rooms: ReadonlyMap<string, string>): s
   return room ? (number ? `${room} · post ${number}` : room) : postId;
 }
 
+/** Post id -> the post as the floor map names it ("Textile Gallery · post 2"). */
+export function postLabels(scenario: unknown): Map<string, string> {
+  const rooms = roomsOfScenario(scenario);
+  return new Map([...rooms.keys()].map((id) => [id, postLabel(id, rooms)]));
+}
+
 /** Post id -> room name, from the posts of a roster's scenario. */
 export function roomsOfScenario(scenario: unknown): Map<string, string> {
   const posts = (scenario as { posts?: { id: string; room?: string }[] } | null)?.posts ?? [];

@@ -57,15 +57,20 @@ export function engineRoster(roster: StoredRoster): Roster {
   };
 }
 
-/** Replaces engine guard ids ("G12") in a message with the guard's name. */
-export function withGuardNames(message: string, names: ReadonlyMap<number, string>): string {
-  return message.replace(/\bG(\d+)\b/g, (whole, id: string) => names.get(Number(id)) ?? whole);
+/**
+ * Replaces engine guard ids ("G12") in a message with the guard's name, and post ids ("R12-P1", also
+ * "post R12-P1") with the post as the floor map names it ("Exhibition Hall West · post 1").
+ */
+export function withGuardNames(message: string, names: ReadonlyMap<number, string>, posts: ReadonlyMap<string, string> = new Map()): string {
+  return message
+    .replace(/\bG(\d+)\b/g, (whole, id: string) => names.get(Number(id)) ?? whole)
+    .replace(/(?:\bpost )?\b(R\d+-P\d+)\b/g, (whole, id: string) => posts.get(id) ?? whole);
 }
 
-export function storedViolations(violations: Violation[], names: ReadonlyMap<number, string>): RosterViolation[] {
+export function storedViolations(violations: Violation[], names: ReadonlyMap<number, string>, posts: ReadonlyMap<string, string> = new Map()): RosterViolation[] {
   return violations.map((v) => ({
     rule: v.rule,
-    message: withGuardNames(v.message, names),
+    message: withGuardNames(v.message, names, posts),
     ...(v.guard ? { guard: v.guard } : {}),
     ...(v.post ? { post: v.post } : {}),
     ...(v.start !== undefined ? { start: iso(v.start) } : {}),

@@ -98,6 +98,36 @@ describe("the publish review", () => {
     }, 90_000);
   }
 
+  it("reassign lists the guards who can take a stretch first, the others with the rule they would break", async () => {
+    const context = await newContext(browser);
+    const page = await context.newPage();
+    try {
+      await signInThroughForm(page, "operations@example.org", DEMO_PASSWORD);
+      await page.waitForURL((url) => url.pathname === "/");
+      await page.goto(`/staffing?week=${WEEK}`);
+      const grid = page.getByTestId("roster-grid");
+      await shown(grid, 30_000);
+      // The second open day still has its shifts: choose Exhibition Hall West's first post at its first hour.
+      await page.getByRole("tab").nth(1).click();
+      await grid.getByRole("button", { name: /^Exhibition Hall West · post 1 at \d\d:\d\d: .*Reassign$/ }).first().click();
+      const panel = page.getByRole("form", { name: "Reassign" });
+      const select = panel.getByLabel("Give this stretch to");
+      await shown(select, 30_000);
+      const groups = await select.evaluate((el) =>
+        [...el.querySelectorAll("optgroup")].map((g) => ({ label: g.label, options: [...g.querySelectorAll("option")].map((o) => o.textContent ?? "") })),
+      );
+      expect(groups[0]!.label).toMatch(/^(Can take it \(\d+\)|Nobody can take it without breaking a rule)$/);
+      for (const option of groups[0]!.options) expect(option).toMatch(/^.+ — [\d.]+ h of [\d.]+ h so far$/);
+      expect(groups[1]!.label).toMatch(/^Would break a rule \(\d+\)$/);
+      for (const option of groups[1]!.options) expect(option).toMatch(/ so far — [a-z-]+$/);
+      // No message on the panel names a post by an internal id.
+      await expect(panel.innerText()).resolves.not.toMatch(/\bR\d+-P\d+\b/);
+      await panel.getByRole("button", { name: "Cancel" }).click();
+    } finally {
+      await context.close();
+    }
+  }, 90_000);
+
   it("publishes with the room's name typed and a note, and keeps both with the version", async () => {
     const context = await newContext(browser);
     const page = await context.newPage();

@@ -3,14 +3,12 @@
 // On a draft, choosing a cell lets operations give that stretch to another guard; the server checks
 // the change against the rules and refuses it with the rule's message.
 import { TZDate } from "@date-fns/tz";
-import { useMutation } from "@tanstack/react-query";
-import { useQueryClient } from "@tanstack/react-query";
 import { format } from "date-fns";
 import { useMemo, useState } from "react";
-import { apiFetch } from "@/lib/api/client";
 import type { RosterView } from "./roster-types";
+import { ReassignPanel } from "./reassign-panel";
 
-interface Cell {
+export interface Cell {
   guardId: number | null;
   guardName: string | null;
   /** The segment (or unfilled slot) this hour belongs to. */
@@ -18,7 +16,7 @@ interface Cell {
   reason?: string;
 }
 
-interface Selection {
+export interface Selection {
   post: string;
   postLabel: string;
   cell: Cell;
@@ -135,52 +133,5 @@ export function RosterGrid({ roster, onChanged }: { roster: RosterView; onChange
         </table>
       </div>
     </div>
-  );
-}
-
-function ReassignPanel({ roster, selection, onDone, onCancel }: { roster: RosterView; selection: Selection; onDone: () => void; onCancel: () => void }) {
-  const queryClient = useQueryClient();
-  const candidates = roster.guards.filter((g) => g.id !== selection.cell.guardId);
-  const [guardId, setGuardId] = useState<number>(candidates[0]?.id ?? 0);
-  const change = useMutation({
-    mutationFn: () =>
-      apiFetch<{ roster: RosterView }>(`/api/rosters/${roster.id}/reassign`, {
-        body: { revision: roster.revision, from: { guardId: selection.cell.guardId, post: selection.post, start: selection.cell.segmentStart }, toGuardId: guardId },
-      }),
-    onSuccess: ({ roster: updated }) => {
-      queryClient.setQueryData(["roster", roster.id], updated);
-      onDone();
-    },
-  });
-  return (
-    <form
-      className="rounded-md border border-brass-300 bg-brass-100 p-3"
-      onSubmit={(event) => {
-        event.preventDefault();
-        change.mutate();
-      }}
-      aria-label="Reassign"
-    >
-      <p className="font-semibold">
-        {selection.postLabel}, {selection.when}: {selection.cell.guardName ?? "unfilled"}
-      </p>
-      {selection.cell.reason && <p className="text-sm text-stone-700">Unfilled because {selection.cell.reason}</p>}
-      <div className="mt-2 flex flex-wrap items-end gap-2">
-        <div>
-          <label htmlFor="reassign-guard" className="field-label">Give this stretch to</label>
-          <select id="reassign-guard" className="field-input" value={guardId} onChange={(event) => setGuardId(Number(event.target.value))}>
-            {candidates.map((g) => (
-              <option key={g.id} value={g.id}>
-                {g.name}
-                {g.skills.length ? ` (${g.skills.join(", ")})` : ""}
-              </option>
-            ))}
-          </select>
-        </div>
-        <button type="submit" className="button" disabled={change.isPending || !guardId}>Reassign</button>
-        <button type="button" className="button-quiet" onClick={onCancel}>Cancel</button>
-      </div>
-      {change.error && <p role="alert" className="mt-2 text-sm text-alert-700">{change.error.message}</p>}
-    </form>
   );
 }
