@@ -36,7 +36,12 @@ export type PlanAnswer =
         regions: Ring[][][];
         covered: number;
         uncovered: Ring[][];
+        /** The plan has more posts than the drawing shades (SIGHT_DRAWING_LIMIT): regions is empty. */
+        regionsOmitted?: boolean;
       };
       ms: number;
     }
   | { id: number; ok: false; problems: []; failure: string };
+
+/** Sight regions are drawn for plans of up to this many posts; beyond, the drawing would not read. */
+export const SIGHT_DRAWING_LIMIT = 300;

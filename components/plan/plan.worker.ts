@@ -1,7 +1,7 @@
 // The live re-plan off the main thread: the one planning pipeline (lib/guarding/plan-room.ts) with
 // the guaranteed plan, or the shown posts, certified and their sight drawn. Newest job wins.
 import { guaranteedPosts, planRoom } from "@/lib/guarding/plan-room";
-import type { PlanAnswer, PlanJob, PlanTriangle } from "./plan-messages";
+import { SIGHT_DRAWING_LIMIT, type PlanAnswer, type PlanJob, type PlanTriangle } from "./plan-messages";
 
 let latest = 0;
 
@@ -13,6 +13,7 @@ function plan(job: PlanJob): PlanAnswer {
     sightRange: job.sightRange && job.sightRange > 0 ? job.sightRange : undefined,
     doubleCover: job.doubleCover,
     withRegions: true,
+    regionLimit: SIGHT_DRAWING_LIMIT,
   });
   if (!outcome.ok) return { id: job.id, ok: false, problems: outcome.problems };
   const { guaranteed, plan: shown, regions } = outcome.planned;
@@ -30,7 +31,7 @@ function plan(job: PlanJob): PlanAnswer {
     triangles,
     // Double cover: the guaranteed plan is the two smallest colour classes (each sees the floor once).
     guaranteed: { posts: guaranteedPosts(guaranteed, { doubleCover: job.doubleCover }), colour: guaranteed.postColour, doubleCover: job.doubleCover },
-    sight: { posts: shown.posts, regions: regions ?? [], covered: shown.covered ?? 0, uncovered: shown.uncovered },
+    sight: { posts: shown.posts, regions: regions ?? [], covered: shown.covered ?? 0, uncovered: shown.uncovered, regionsOmitted: outcome.planned.regionsOmitted },
     ms: Math.round(performance.now() - started),
   };
 }

@@ -79,6 +79,8 @@ export interface PlanRoomOptions extends PostConstraints {
   certify?: boolean;
   /** Also answer every post's sight region (the editor draws them). */
   withRegions?: boolean;
+  /** With withRegions: draw regions only for plans of at most this many posts (default: no limit). */
+  regionLimit?: number;
   /** Called after each stage; a worker thread passes the best plan so far on to the server. */
   onProgress?: (progress: PlanProgress) => void;
   /** Checked between stages: a cancelled job stops at the next one. */
@@ -100,6 +102,8 @@ export interface PlannedRoom {
   plan: ComputedPostPlan;
   /** Sight of the plan's posts, when withRegions. */
   regions?: Region[];
+  /** withRegions was asked but the plan has more posts than regionLimit: no regions drawn. */
+  regionsOmitted?: boolean;
   stoppedBecause: StoppedBecause;
   ms: Partial<Record<PlanStage, number>>;
 }
@@ -181,7 +185,9 @@ export function planRoom(input: Room, options: PlanRoomOptions = {}): PlanRoomOu
     const posts = options.shownPosts ?? [];
     plan = { method: "shown", posts, lowerBound: null, proven: false, ...certify(posts) };
   } else if (method === "guaranteed") {
-    plan = options.certify === false ? best! : { ...best!, ...certify(best!.posts) };
+    // The theorem already says the guaranteed plan sees the floor (no sight range, no corner left
+    // out): no certificate is needed, which at thousands of corners would union thousands of regions.
+    plan = options.certify === false ? best! : best!.coveredBy === "theorem" ? { ...best!, uncovered: [] } : { ...best!, ...certify(best!.posts) };
   } else {
     const run = stage("fewest", () => {
       const secondsLeft = options.deadline === undefined ? Infinity : (options.deadline - Date.now()) / 1000;
@@ -220,7 +226,8 @@ export function planRoom(input: Room, options: PlanRoomOptions = {}): PlanRoomOu
     }
   }
   best = plan;
-  if (options.withRegions && regionsOf !== plan.posts) regions = stage("sight", () => sightRegions(sightlines, plan.posts, constraints.sightRange));
+  const drawRegions = options.withRegions === true && plan.posts.length <= (options.regionLimit ?? Infinity);
+  if (drawRegions && regionsOf !== plan.posts) regions = stage("sight", () => sightRegions(sightlines, plan.posts, constraints.sightRange));
 
   const { vertices, obstacles } = roomCounts(room);
   return {
@@ -234,7 +241,8 @@ export function planRoom(input: Room, options: PlanRoomOptions = {}): PlanRoomOu
       guaranteed,
       ...(fewest ? { fewest } : {}),
       plan,
-      ...(options.withRegions ? { regions } : {}),
+      ...(drawRegions ? { regions } : {}),
+      ...(options.withRegions && !drawRegions ? { regionsOmitted: true } : {}),
       stoppedBecause,
       ms,
     },

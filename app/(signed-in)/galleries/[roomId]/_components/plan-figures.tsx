@@ -1,7 +1,7 @@
 "use client";
 // The numbers beside the drawing: n, h, the guaranteed bound and count, the fewest count with its
 // lower bound, and whether the fewest plan is proven minimal.
-import type { PlanAnswer } from "@/components/plan/plan-messages";
+import { SIGHT_DRAWING_LIMIT, type PlanAnswer } from "@/components/plan/plan-messages";
 import type { FewestPreview } from "@/lib/api/plan-input";
 
 interface Props {
@@ -67,6 +67,11 @@ export function PlanFigures({ answer, sightOf, fewest, fewestState, fewestMessag
       {ok && ok.guaranteed.doubleCover && (
         <p className="text-xs text-stone-700" data-testid="double-cover-note">
           Every point must be seen by two posts, so the guaranteed plan takes the corners of the two smallest colour classes: every triangle has one corner of each colour and each class sees the whole floor, so together they see it twice (Fisk, 1978).
+        </p>
+      )}
+      {ok?.sight.regionsOmitted && (
+        <p className="text-xs text-stone-700" data-testid="sight-omitted">
+          Sight shading is drawn for plans of up to {SIGHT_DRAWING_LIMIT} posts; this plan has {ok.sight.posts.length || ok.guaranteed.posts.length}.
         </p>
       )}
       {fewestState === "computing" && <p className="text-sm text-stone-700" aria-live="polite">Fewest plan: computing…</p>}
