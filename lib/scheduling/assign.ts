@@ -6,7 +6,7 @@ import { assignMinCost, FORBIDDEN } from "./hungarian";
 import type { ShiftPattern } from "./patterns";
 import { weekdayNames, type Guard, type Scenario } from "./scenario";
 import { formatClock, HOUR, weekdayIndex } from "./time";
-import { weeklyLimitHours } from "./rules/weeklyMax";
+import { LABOUR_RULES } from "./rules/registry";
 
 export interface ShiftInstance {
   day: number;
@@ -49,25 +49,13 @@ function computeShiftKind(scenario: Scenario, demand: Demand, start: number, end
   return { late: endClock >= "20:00" || end - start > 0 && endClock < formatClock(scenario.timezone, start), weekend: weekdayIndex(scenario.timezone, startDate) >= 5 };
 }
 
-/** Why a guard cannot take [start, end) with `paidMs` paid, or null when they can (rest, weekly max, availability, overlap). */
+/**
+ * Which labour rule keeps a guard off [start, end) with `paidMs` paid, or null when none does: the
+ * blockers of the rule registry (rules/registry.ts), the same modules whose checks judge the roster.
+ */
 export function blockerFor(scenario: Scenario, demand: Demand, load: GuardLoad, start: number, end: number, paidMs: number): string | null {
-  const rules = scenario.rules;
-  if (isUnavailable(demand, load.guard.id, start, end)) return "leave";
-  for (const s of load.shifts) {
-    if (s.start < end && start < s.end) return "busy";
-    if (s.end <= start && start - s.end < rules.minRestHours * HOUR - 1000) return "rest";
-    if (end <= s.start && s.start - end < rules.minRestHours * HOUR - 1000) return "rest";
-  }
-  // Conservative 7-day check: every window of 7 x 24 h holding the new shift, with each shift it touches counted in full.
-  const week = 7 * 24 * HOUR;
-  const near = load.shifts.filter((s) => s.end > end - week && s.start < start + week);
-  const anchors = [start, end - week, ...near.map((s) => s.start), ...near.map((s) => s.end - week)].filter((a) => a > end - week - 1 && a <= start);
-  for (const from of anchors) {
-    const to = from + week;
-    const paid = near.reduce((sum, s) => sum + (s.end > from && s.start < to ? s.paidMs : 0), 0);
-    if (paid + paidMs > weeklyLimitHours(load.guard) * HOUR + 1000) return "weekly";
-  }
-  return null;
+  const blocked = LABOUR_RULES.find((rule) => rule.blocks?.({ scenario, demand, guard: load.guard, shifts: load.shifts, start, end, paidMs }));
+  return blocked?.name ?? null;
 }
 
 export function commitShift(load: GuardLoad, week: number, start: number, end: number, paidMs: number, kind: { late: boolean; weekend: boolean }) {

@@ -3,7 +3,10 @@ import { hasSkills, isUnavailable, type Demand } from "./demand";
 import type { Shift } from "./roster";
 import type { Scenario } from "./scenario";
 import { formatClock, HOUR } from "./time";
-import { bindingLimit, CONTRACT_HOURS, weeklyLimitHours } from "./rules/weeklyMax";
+import { bindingLimit, CONTRACT_HOURS, WEEKLY_MAX } from "./rules/weeklyMax";
+import { REST } from "./rules/rest";
+import { labourRule } from "./rules/registry";
+import { paidMs } from "./roster";
 
 export function explainUnfilled(scenario: Scenario, demand: Demand, shifts: Shift[], postId: string, slotStart: number, slotEnd: number): string {
   const rules = scenario.rules;
@@ -32,16 +35,21 @@ export function explainUnfilled(scenario: Scenario, demand: Demand, shifts: Shif
       add(rotated ? `rotating off this post after ${rules.maxHoursAtOnePost} h` : onBreak ? "on a break" : "at other posts");
     } else if (day && own.some((s) => s.start >= day.open! && s.start < day.close!)) add("already on a shift that day");
     else {
+      // The rest and weekly rules' own blockers (rules/registry.ts) decide, on the shortest legal
+      // shift holding this slot, with paid time counted as the rules count it.
       const rest = rules.minRestHours * HOUR;
-      const before = own.filter((s) => s.end <= slotStart && slotStart - s.end < rest);
-      const after = own.filter((s) => s.start >= slotEnd && s.start - slotEnd < rest);
-      if (before.length) {
-        add("resting");
-        restUntil.push(Math.max(...before.map((s) => s.end + rest)));
-      } else if (after.length) add("resting before their next shift");
-      else {
-        const weekMs = own.filter((s) => s.end > slotStart - 7 * 24 * HOUR && s.start < slotEnd + 7 * 24 * HOUR).reduce((sum, s) => sum + s.segments.reduce((a, x) => a + x.end - x.start, 0), 0);
-        if (weekMs + rules.minShiftHours * HOUR > weeklyLimitHours(guard) * HOUR) add(bindingLimit(guard) === CONTRACT_HOURS ? "at their contract hours plus accepted extra" : "at their weekly maximum");
+      const paid = own.map((s) => ({ start: s.start, end: s.end, paidMs: paidMs(s, rules.paidBreaks) }));
+      const shortest = { start: slotStart, end: Math.max(slotEnd, slotStart + rules.minShiftHours * HOUR) };
+      const question = { scenario, demand, guard, shifts: paid, ...shortest, paidMs: shortest.end - shortest.start };
+      if (labourRule(REST).blocks!({ ...question, start: slotStart, end: slotEnd })) {
+        const before = own.filter((s) => s.end <= slotStart && slotStart - s.end < rest);
+        if (before.length) {
+          add(labourRule(REST).reason!);
+          restUntil.push(Math.max(...before.map((s) => s.end + rest)));
+        } else add("resting before their next shift");
+      } else {
+        const limit = bindingLimit(guard) === CONTRACT_HOURS ? labourRule(CONTRACT_HOURS) : labourRule(WEEKLY_MAX);
+        if (labourRule(WEEKLY_MAX).blocks!(question) || labourRule(CONTRACT_HOURS).blocks!(question)) add(limit.reason!);
         else add("free but no legal shift fits the gap");
       }
     }

@@ -4,6 +4,11 @@ import type { RuleContext } from "./context";
 
 export const AVAILABILITY = "availability";
 
+/** The engine's test: is the guard unavailable at any moment of [start, end)? */
+export function availabilityBlocks(unavailable: readonly { start: number; end: number }[] | undefined, start: number, end: number): boolean {
+  return (unavailable ?? []).some((u) => u.start < end && start < u.end);
+}
+
 export function checkAvailability(ctx: RuleContext, roster: Roster): Violation[] {
   const violations: Violation[] = [];
   for (const shift of roster.shifts) {

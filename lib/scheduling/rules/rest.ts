@@ -5,6 +5,12 @@ import { EPSILON_MS, hoursText, type RuleContext } from "./context";
 
 export const REST = "rest";
 
+/** The engine's test: would [start, end) leave less than minRestHours after or before another shift? */
+export function restBlocks(minRestHours: number, shifts: readonly { start: number; end: number }[], start: number, end: number): boolean {
+  const rest = minRestHours * HOUR - EPSILON_MS;
+  return shifts.some((s) => (s.end <= start && start - s.end < rest) || (end <= s.start && s.start - end < rest));
+}
+
 export function checkRest(ctx: RuleContext, roster: Roster): Violation[] {
   const minRest = ctx.scenario.rules.minRestHours * HOUR;
   const violations: Violation[] = [];

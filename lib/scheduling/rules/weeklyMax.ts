@@ -41,6 +41,23 @@ export function maxPaidInAnyWeek(intervals: { start: number; end: number }[]): {
   return best;
 }
 
+/**
+ * The engine's test: with `paidMs` more paid time in [start, end), would some window of 7 x 24 real
+ * hours holding it pay the guard past weeklyLimitHours? Conservative: each shift the window touches
+ * counts in full.
+ */
+export function weeklyBlocks(guard: Pick<Guard, "maxHours" | "contractHours" | "extraHours">, shifts: readonly { start: number; end: number; paidMs: number }[], start: number, end: number, paidMs: number): boolean {
+  const limit = weeklyLimitHours(guard) * HOUR + EPSILON_MS;
+  const near = shifts.filter((s) => s.end > end - WEEK && s.start < start + WEEK);
+  const anchors = [start, end - WEEK, ...near.map((s) => s.start), ...near.map((s) => s.end - WEEK)].filter((a) => a > end - WEEK - 1 && a <= start);
+  for (const from of anchors) {
+    const to = from + WEEK;
+    const paid = near.reduce((sum, s) => sum + (s.end > from && s.start < to ? s.paidMs : 0), 0);
+    if (paid + paidMs > limit) return true;
+  }
+  return false;
+}
+
 /** Hard rule: paid hours in any 7 days stay within the guard's contract plus the extra they accept. */
 export function checkContractHours(ctx: RuleContext, roster: Roster): Violation[] {
   const violations: Violation[] = [];
