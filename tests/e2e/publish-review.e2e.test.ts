@@ -143,6 +143,10 @@ describe("the publish review", () => {
       await review.getByLabel("Note (kept with the version)").fill("Hall East closed on the first day; front desk told.");
       await review.getByRole("button", { name: "Publish anyway" }).click();
       await shown(page.getByText(/^Published version 1; e-mailing every guard on it\.$/), 30_000);
+      // The version's history keeps what was confirmed and why.
+      await page.getByRole("button", { name: /^Version 1/ }).first().click();
+      const kept = page.getByTestId("publish-confirmation");
+      await shown(kept.getByText("Confirmed by typing “Exhibition Hall East”. Note: Hall East closed on the first day; front desk told."), 30_000);
     } finally {
       await context.close();
     }

@@ -20,6 +20,17 @@ export function RosterSummary({ roster }: { roster: RosterView }) {
   }
   return (
     <div className="space-y-4">
+      {roster.status === "published" && roster.publishReview?.needsConfirmation && (
+        <div className="rounded-md border border-alert-200 bg-alert-50 p-3 text-sm" data-testid="publish-confirmation">
+          <p className="font-semibold text-alert-700">
+            Published with {roster.publishReview.emptyRooms.length === 1 ? "a room" : `${roster.publishReview.emptyRooms.length} rooms`} left without a guard while open:{" "}
+            {roster.publishReview.emptyRooms.map((r) => r.room).join(", ")}.
+          </p>
+          <p>
+            Confirmed by typing “{roster.publishConfirmation}”. Note: {roster.publishNote}
+          </p>
+        </div>
+      )}
       {totals && (
         <dl className="grid grid-cols-2 gap-x-6 gap-y-1 text-sm sm:grid-cols-4" aria-label="Roster totals">
           <Total term="Post-hours" value={String(totals.postHours)} />

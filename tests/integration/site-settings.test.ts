@@ -1,0 +1,89 @@
+// Site settings through the route handler in-process on the real PostgreSQL: an admin saves the
+// time zone, locale, currency (ISO 4217, checked against the platform's Intl list), hourly rate and
+// the default accepted extra hours; other roles get 403; a bad value gets 422 naming the field and
+// changes nothing; a save over values someone else changed meanwhile gets 409 and changes nothing;
+// a roster scenario then gives guards without their own value the site's default. A scratch site of
+// its own, so the demo site's settings never change under the other tests.
+import { vi } from "vitest";
+// `server-only` refuses to load outside a React server build; here it only marks the modules.
+vi.mock("server-only", () => ({}));
+
+import { afterAll, beforeAll, describe, expect, it } from "vitest";
+import type { Kysely } from "kysely";
+import { createDb } from "@/db";
+import type { Database } from "@/db/schema";
+import { GET, PUT } from "@/app/api/sites/[siteId]/settings/route";
+import { siteSettings, type SiteSettings } from "@/db/queries/site-settings";
+import { createSite } from "@/db/queries/galleries";
+import { acceptedExtraHours } from "@/lib/rosters/scenario";
+import { requireDatabaseUrl } from "./support/database";
+import { signedRequest, userByEmail, type SignedUser } from "./support/signed-request";
+
+let db: Kysely<Database>;
+let siteId: number;
+let admin: SignedUser;
+let operations: SignedUser;
+let original: SiteSettings;
+
+const context = () => ({ params: Promise.resolve({ siteId: String(siteId) }) });
+async function put(user: SignedUser, body: unknown) {
+  const response = await PUT(await signedRequest(user, `http://127.0.0.1/api/sites/${siteId}/settings`, body, "PUT"), context());
+  return { status: response.status, body: (await response.json()) as Record<string, any> };
+}
+
+beforeAll(async () => {
+  db = createDb(requireDatabaseUrl(), { max: 2 });
+  await db.deleteFrom("sites").where("name", "=", "Settings test site").execute();
+  siteId = (await createSite(db, { name: "Settings test site", time_zone: "Europe/Berlin", currency: "EUR", hourly_rate: 22 })).id;
+  [admin, operations] = await Promise.all([userByEmail(db, "admin@example.org"), userByEmail(db, "operations@example.org")]);
+  const current = (await siteSettings(db, siteId))!;
+  original = { timeZone: current.timeZone, locale: current.locale, currency: current.currency, hourlyRate: current.hourlyRate, acceptedExtraHours: current.acceptedExtraHours };
+});
+
+afterAll(async () => {
+  await db.deleteFrom("sites").where("id", "=", siteId).execute();
+  await db.destroy();
+});
+
+describe("site settings", () => {
+  it("reads them for admins only", async () => {
+    const ok = await GET(await signedRequest(admin, `http://127.0.0.1/api/sites/${siteId}/settings`), context());
+    expect(ok.status).toBe(200);
+    expect(((await ok.json()) as { settings: SiteSettings }).settings).toMatchObject(original);
+    expect((await GET(await signedRequest(operations, `http://127.0.0.1/api/sites/${siteId}/settings`), context())).status).toBe(403);
+  });
+
+  it("refuses other roles and bad values, changing nothing", async () => {
+    const next = { ...original, acceptedExtraHours: 5 };
+    expect((await put(operations, { previous: original, settings: next })).status).toBe(403);
+    for (const [field, value, pattern] of [
+      ["currency", "EURO", /ISO 4217/],
+      ["currency", "XYZ", /ISO 4217/],
+      ["timeZone", "Mars/Olympus", /IANA time zone/],
+      ["hourlyRate", -3, /cannot be negative/],
+      ["acceptedExtraHours", 60, /at most 40/],
+    ] as const) {
+      const answer = await put(admin, { previous: original, settings: { ...original, [field]: value } });
+      expect(answer.status, `${field}=${value}`).toBe(422);
+      expect(answer.body.error.field).toBe(`settings.${field}`);
+      expect(answer.body.error.message).toMatch(pattern);
+    }
+    expect(await siteSettings(db, siteId)).toMatchObject(original);
+  });
+
+  it("saves over the values shown, refuses a stale save with 409, and rosters use the default", async () => {
+    const saved = await put(admin, { previous: original, settings: { ...original, currency: "gbp", hourlyRate: 24.5, acceptedExtraHours: 3 } });
+    expect(saved.status).toBe(200);
+    expect(saved.body.settings).toMatchObject({ currency: "GBP", hourlyRate: 24.5, acceptedExtraHours: 3 });
+    // A second admin still looking at the old values.
+    const stale = await put(admin, { previous: original, settings: { ...original, hourlyRate: 30 } });
+    expect(stale.status).toBe(409);
+    expect(stale.body.error.code).toBe("settings-changed");
+    expect(stale.body.error.current).toMatchObject({ hourlyRate: 24.5 });
+    expect(await siteSettings(db, siteId)).toMatchObject({ currency: "GBP", hourlyRate: 24.5, acceptedExtraHours: 3 });
+    // A guard without a value of their own now accepts the site's 3 extra hours; one with a value keeps it.
+    const site = await db.selectFrom("sites").select(["labour_rules"]).where("id", "=", siteId).executeTakeFirstOrThrow();
+    expect(acceptedExtraHours({ accepted_extra_hours: null }, site)).toBe(3);
+    expect(acceptedExtraHours({ accepted_extra_hours: 5 }, site)).toBe(5);
+  });
+});
