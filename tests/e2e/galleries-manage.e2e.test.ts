@@ -6,6 +6,7 @@ import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import type { Browser, Locator, Page } from "playwright-core";
 import { DEMO_PASSWORD } from "@/db/seed/accounts";
 import { launchBrowser, newContext, signInThroughForm } from "./support/browser";
+import { signedIn } from "./support/http";
 import { testDb } from "./support/server";
 
 const db = testDb();
@@ -96,6 +97,40 @@ describe("running the galleries", () => {
       }
     }, 90_000);
   }
+
+  it("lists a room's versions, draws one beside the current walls, and restores it as a new version", async () => {
+    const curator = (await signedIn("curator@example.org", DEMO_PASSWORD)).who;
+    await db.deleteFrom("floors").where("name", "=", FLOOR).execute();
+    const site = await db.selectFrom("sites").select("id").orderBy("id").executeTakeFirstOrThrow();
+    const floorAnswer = await curator.request("/api/floors", { method: "POST", json: { siteId: site.id, name: FLOOR, level: 7 } });
+    const { floor } = (await floorAnswer.json()) as { floor: { id: number } };
+    const created = await curator.request("/api/rooms", { method: "POST", json: { floorId: floor.id, name: "History Room", width: 10, depth: 6 } });
+    const { room } = (await created.json()) as { room: { id: number } };
+    const lShape = [[0, 0], [10, 0], [10, 6], [4, 6], [4, 3], [0, 3]];
+    const saved = await curator.request(`/api/rooms/${room.id}`, { method: "PUT", json: { outline: lShape, obstacles: [], version: 1 } });
+    expect(saved.status).toBe(200);
+    const page = await signedInPage("curator");
+    try {
+      await page.goto(`/galleries/${room.id}`);
+      const versions = page.getByTestId("room-versions");
+      await versions.locator("summary").click();
+      await shown(versions.getByRole("cell", { name: "2 (current)" }));
+      const first = versions.getByRole("row").filter({ has: page.getByRole("cell", { name: "1", exact: true }) });
+      await first.getByRole("button", { name: "Compare" }).click();
+      await shown(page.getByTestId("version-compare").getByRole("img", { name: "History Room, version 1" }));
+      await shown(page.getByTestId("version-compare").getByRole("img", { name: "History Room, version 2 (current)" }));
+      await first.getByRole("button", { name: "Restore" }).click();
+      await shown(versions.getByText(/^Version 1 restored as a new version/));
+      await expect.poll(async () => (await db.selectFrom("rooms").select("version").where("id", "=", room.id).executeTakeFirstOrThrow()).version).toBe(3);
+      const now = await db.selectFrom("rooms").select("outline").where("id", "=", room.id).executeTakeFirstOrThrow();
+      expect(now.outline).toHaveLength(4);
+      // Restoring over a version someone else replaced meanwhile is refused, naming both versions.
+      const stale = await curator.request(`/api/rooms/${room.id}/versions/2/restore`, { method: "POST", json: { currentVersion: 2 } });
+      expect(stale.status).toBe(409);
+    } finally {
+      await page.context().close();
+    }
+  }, 90_000);
 
   it("says what depends on a room in an exhibition before deleting it, and keeps it when told", async () => {
     const page = await signedInPage("curator");

@@ -18,6 +18,7 @@ import type { FewestPreview, RoomWalls } from "@/lib/api/plan-input";
 import { PlanFigures } from "./plan-figures";
 import { StaffingPanel } from "./staffing-panel";
 import { PostPlansPanel } from "./post-plans-panel";
+import { RoomVersions } from "./room-versions";
 
 export interface RoomData {
   room: RoomDetail;
@@ -377,6 +378,19 @@ export function RoomWorkspace({ initial, canEdit, canApprove, exhibitionId, caut
             </p>
           </div>
         )}
+
+        <RoomVersions
+          roomId={detail.id}
+          roomName={detail.name}
+          currentVersion={detail.version}
+          current={{ outline: detail.outline, obstacles: detail.obstacles }}
+          canEdit={canEdit}
+          dirty={dirty}
+          onRestored={() => {
+            void reload();
+            router.refresh();
+          }}
+        />
       </div>
 
       <aside className="space-y-4" aria-label="Plan figures">
