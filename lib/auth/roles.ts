@@ -10,6 +10,7 @@ export const PERMISSIONS = [
   "galleries:view",
   "rooms:edit",
   "exhibitions:view",
+  "exhibitions:edit",
   "plans:approve",
   "staffing:view",
   "rosters:publish",
@@ -29,6 +30,7 @@ const GRANTS: Record<Role, readonly Permission[]> = {
   operations: [
     "galleries:view",
     "exhibitions:view",
+    "exhibitions:edit",
     "plans:approve",
     "staffing:view",
     "rosters:publish",

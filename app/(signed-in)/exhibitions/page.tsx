@@ -4,19 +4,30 @@ import { postPlansForExhibition } from "@/db/queries/post-plans";
 import { requirePageUser } from "@/lib/auth/session";
 import { calendarDate } from "@/components/when";
 import { exhibitionsWithRooms, mainSite, siteDay } from "../_queries/site";
+import { db } from "@/db";
+import { roomsOfSite } from "@/db/queries/exhibitions";
+import { can } from "@/lib/auth/roles";
+import { ExhibitionEditor } from "./_components/exhibition-form";
 
 export const metadata: Metadata = { title: "Exhibitions" };
 
 export default async function ExhibitionsPage() {
-  await requirePageUser("exhibitions:view");
+  const user = await requirePageUser("exhibitions:view");
+  const editable = can(user.role, "exhibitions:edit");
   const site = await mainSite();
   const exhibitions = site ? await exhibitionsWithRooms(site.id) : [];
   // Each exhibition's post plans, newest first per room: the first approved one is what staffing counts.
   const plans = new Map(await Promise.all(exhibitions.map(async (e) => [e.id, await postPlansForExhibition(e.id)] as const)));
   const today = site ? siteDay(site).date : "";
+  const siteRooms = site && editable ? await roomsOfSite(db, site.id) : [];
   return (
     <div className="space-y-6">
       <h1>Exhibitions</h1>
+      {site && editable && (
+        <section aria-label="New exhibition" className="card">
+          <ExhibitionEditor siteId={site.id} siteRooms={siteRooms} initial={null} today={today} />
+        </section>
+      )}
       {exhibitions.length === 0 && <p>No exhibitions yet.</p>}
       {exhibitions.map((exhibition) => {
         const state = exhibition.ends_on < today ? "ended" : exhibition.starts_on > today ? "upcoming" : "running";
@@ -29,6 +40,22 @@ export default async function ExhibitionsPage() {
             <p className="text-sm text-stone-700">
               {calendarDate(exhibition.starts_on)} – {calendarDate(exhibition.ends_on)}
             </p>
+            {site && editable && (
+              <div className="mt-3">
+                <ExhibitionEditor
+                  siteId={site.id}
+                  siteRooms={siteRooms}
+                  today={today}
+                  initial={{
+                    id: exhibition.id,
+                    name: exhibition.name,
+                    startsOn: exhibition.starts_on,
+                    endsOn: exhibition.ends_on,
+                    rooms: exhibition.rooms.map((r) => ({ roomId: r.id, riskLevel: r.risk_level === "high" ? "high" : "standard", sightRange: r.sight_range == null ? null : Number(r.sight_range), doubleCover: r.double_cover })),
+                  }}
+                />
+              </div>
+            )}
             <div className="mt-3 overflow-x-auto">
               <table className="data-table">
                 <caption className="sr-only">Rooms of {exhibition.name}</caption>
