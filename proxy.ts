@@ -9,7 +9,7 @@ import { can, isRole, permissionForPath, type Role } from "@/lib/auth/roles";
 import { renewSession, sessionToken } from "@/lib/auth/token";
 import { newNonce, pagePolicy } from "@/lib/security/csp";
 
-const PUBLIC_PATHS = ["/sign-in", "/forbidden"];
+const PUBLIC_PATHS = ["/sign-in", "/forbidden", "/set-password"];
 
 // The token remembers the role at sign-in; before refusing, ask the database whether an admin has
 // since granted more. Pages re-check from the database too, so a withdrawn role is caught there.

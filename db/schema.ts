@@ -66,6 +66,21 @@ export interface UsersTable {
   password_hash: string;
   role: Role;
   created_at: ColumnType<Date, Date | string | undefined, Date | string>;
+  /** Set while the account is disabled: sign-in is refused and sessions end (0080). */
+  disabled_at: ColumnType<Date | null, Date | string | null | undefined, Date | string | null>;
+  last_sign_in_at: ColumnType<Date | null, Date | string | null | undefined, Date | string | null>;
+}
+
+/** A single-use link to set a password: an invitation or a reset, kept by its token's SHA-256 (0080). */
+export interface AccountLinksTable {
+  id: GeneratedAlways<number>;
+  user_id: number;
+  token_hash: string;
+  purpose: "invite" | "reset";
+  expires_at: ColumnType<Date, Date | string, Date | string>;
+  used_at: ColumnType<Date | null, Date | string | null | undefined, Date | string | null>;
+  created_at: ColumnType<Date, Date | string | undefined, Date | string>;
+  created_by: number | null;
 }
 
 export interface SitesTable {
@@ -329,6 +344,7 @@ export interface Database {
   post_plans: PostPlansTable;
   room_versions: RoomVersionsTable;
   sign_in_throttle: SignInThrottleTable;
+  account_links: AccountLinksTable;
 }
 
 /** Failed sign-ins per "account:<e-mail>" and "address:<client>" (migration 0060). */

@@ -17,11 +17,14 @@ export async function requireRole(request: NextRequest, permission: Permission):
   }
   const user = await db
     .selectFrom("users")
-    .select(["id", "email", "name", "role"])
+    .select(["id", "email", "name", "role", "disabled_at"])
     .where("id", "=", token.uid)
     .executeTakeFirst();
   if (!user || !isRole(user.role)) {
     throw new ApiProblem(401, "signed-out", "This account no longer exists; sign in again.");
+  }
+  if (user.disabled_at) {
+    throw new ApiProblem(401, "account-disabled", "This account is disabled; ask an administrator to enable it again.");
   }
   if (!can(user.role, permission)) {
     throw new ApiProblem(403, "forbidden", `The ${user.role} role may not do this (needs ${permission}).`, {

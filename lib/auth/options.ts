@@ -3,11 +3,13 @@ import type { NextAuthOptions } from "next-auth";
 import CredentialsProvider from "next-auth/providers/credentials";
 import { z } from "zod";
 import { db } from "@/db";
+import { recordSignIn } from "@/db/queries/accounts";
 import { isRole } from "@/lib/auth/roles";
 import { decoyHash, hashPassword, needsRehash, verifyPassword } from "@/lib/auth/passwords";
 import { safeRedirect } from "@/lib/auth/callback-url";
 import { clientAddress, noteSignInFailure, noteSignInSuccess, signInLock, throttledMessage } from "@/lib/auth/throttle";
 import { SESSION_IDLE_SECONDS, SESSION_RENEW_SECONDS, nowSeconds, withinAbsoluteLimit } from "@/lib/auth/session-policy";
+import { DISABLED_MESSAGE } from "@/lib/auth/throttle-message";
 
 const credentialsSchema = z.object({
   email: z.string().trim().toLowerCase().email().max(254),
@@ -19,12 +21,14 @@ const credentialsSchema = z.object({
 export async function verifyCredentials(email: string, password: string) {
   const user = await db
     .selectFrom("users")
-    .select(["id", "email", "name", "role", "password_hash"])
+    .select(["id", "email", "name", "role", "password_hash", "disabled_at"])
     .where("email", "=", email)
     .executeTakeFirst();
   // An unknown address is compared against a decoy hash, so it costs as long as a wrong password.
   const matches = await verifyPassword(password, user?.password_hash ?? (await decoyHash()));
   if (!user || !matches || !isRole(user.role)) return null;
+  if (user.disabled_at) throw new Error(DISABLED_MESSAGE);
+  await recordSignIn(db, user.id);
   if (needsRehash(user.password_hash)) {
     // A seeded (cheaper) hash becomes a full-cost one with a fresh salt at its first sign-in.
     await db.updateTable("users").set({ password_hash: await hashPassword(password) }).where("id", "=", user.id).execute();

@@ -27,10 +27,11 @@ export const currentUser = cache(async (): Promise<SignedInUser | null> => {
   if (!fromToken) return null;
   const row = await db
     .selectFrom("users")
-    .select(["id", "email", "name", "role"])
+    .select(["id", "email", "name", "role", "disabled_at"])
     .where("id", "=", fromToken.id)
     .executeTakeFirst();
-  if (!row || !isRole(row.role)) return null;
+  // A disabled account reads as signed out: its session ends at the next request.
+  if (!row || !isRole(row.role) || row.disabled_at) return null;
   return { id: row.id, email: row.email, name: row.name, role: row.role };
 });
 

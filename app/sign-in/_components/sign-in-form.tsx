@@ -1,7 +1,7 @@
 "use client";
 import { signIn } from "next-auth/react";
 import { useEffect, useState } from "react";
-import { THROTTLED_PREFIX } from "@/lib/auth/throttle-message";
+import { DISABLED_MESSAGE, THROTTLED_PREFIX } from "@/lib/auth/throttle-message";
 
 const WRONG_CREDENTIALS = "That e-mail and password do not match an account. Check both and try again.";
 
@@ -27,7 +27,7 @@ export function SignInForm({ callbackUrl, initialError }: { callbackUrl: string;
       if (!result || result.error || !result.ok) {
         const reason = result?.error ?? "";
         setError(
-          reason.startsWith(THROTTLED_PREFIX)
+          reason.startsWith(THROTTLED_PREFIX) || reason === DISABLED_MESSAGE
             ? reason
             : reason === "CredentialsSignin" || !reason
               ? WRONG_CREDENTIALS

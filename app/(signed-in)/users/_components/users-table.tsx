@@ -13,7 +13,14 @@ export interface UserRow {
   email: string;
   name: string;
   role: Role;
+  /** ISO time the account was disabled, or null. */
+  disabled_at: string | null;
+  last_sign_in_at: string | null;
+  /** Still waiting for the person to choose a password through their invitation. */
+  invited: boolean;
 }
+
+const when = (iso: string | null) => (iso ? new Date(iso).toLocaleString("en-GB", { dateStyle: "medium", timeStyle: "short", timeZone: "UTC" }) + " UTC" : "never");
 
 export function UsersTable({ users, currentUserId }: { users: UserRow[]; currentUserId: number }) {
   return (
@@ -25,6 +32,9 @@ export function UsersTable({ users, currentUserId }: { users: UserRow[]; current
             <th scope="col">Name</th>
             <th scope="col">E-mail</th>
             <th scope="col">Role</th>
+            <th scope="col">Status</th>
+            <th scope="col">Last sign-in</th>
+            <th scope="col"><span className="sr-only">Actions</span></th>
           </tr>
         </thead>
         <tbody>
@@ -37,6 +47,13 @@ export function UsersTable({ users, currentUserId }: { users: UserRow[]; current
               <td>{user.email}</td>
               <td>
                 <RoleForm user={user} />
+              </td>
+              <td>
+                <span className={user.disabled_at ? "tag-high" : "tag"}>{user.disabled_at ? "disabled" : user.invited ? "invited" : "active"}</span>
+              </td>
+              <td className="whitespace-nowrap">{when(user.last_sign_in_at)}</td>
+              <td>
+                <AccountActions user={user} self={user.id === currentUserId} />
               </td>
             </tr>
           ))}
@@ -84,5 +101,43 @@ function RoleForm({ user }: { user: UserRow }) {
         {problem ?? (change.isSuccess && !form.formState.isDirty ? "Saved" : "")}
       </span>
     </form>
+  );
+}
+
+/** Disable or enable the account, or mail a new link (a reset, or a fresh invitation). */
+function AccountActions({ user, self }: { user: UserRow; self: boolean }) {
+  const router = useRouter();
+  const [message, setMessage] = useState<{ kind: "ok" | "error"; text: string } | null>(null);
+  const access = useMutation({
+    mutationFn: (disabled: boolean) => apiFetch(`/api/users/${user.id}/access`, { method: "PUT", body: { disabled } }),
+    onSuccess: (_, disabled) => {
+      setMessage({ kind: "ok", text: disabled ? `${user.name} can no longer sign in.` : `${user.name} can sign in again.` });
+      router.refresh();
+    },
+    onError: (error) => setMessage({ kind: "error", text: error.message }),
+  });
+  const link = useMutation({
+    mutationFn: () => apiFetch(`/api/users/${user.id}/reset`, { method: "POST", body: {} }),
+    onSuccess: () => setMessage({ kind: "ok", text: `A new link went to ${user.email}.` }),
+    onError: (error) => setMessage({ kind: "error", text: error.message }),
+  });
+  return (
+    <div className="flex flex-wrap items-center gap-2">
+      {!self && (
+        <button type="button" className="button-quiet" disabled={access.isPending} onClick={() => access.mutate(!user.disabled_at)}>
+          {user.disabled_at ? `Enable ${user.name}` : `Disable ${user.name}`}
+        </button>
+      )}
+      {!user.disabled_at && (
+        <button type="button" className="button-quiet" disabled={link.isPending} onClick={() => link.mutate()}>
+          {user.invited ? "Send a new invitation" : "Send a reset link"}
+        </button>
+      )}
+      {message && (
+        <span role={message.kind === "error" ? "alert" : "status"} className={message.kind === "error" ? "text-sm text-alert-700" : "text-sm text-ok-700"}>
+          {message.text}
+        </span>
+      )}
+    </div>
   );
 }

@@ -1,6 +1,7 @@
 import { NextResponse, type NextRequest } from "next/server";
 import { db } from "@/db";
 import { ApiProblem } from "@/lib/api/problem";
+import { activeAdminCount } from "@/db/queries/accounts";
 import { parseBody, parseParams } from "@/lib/api/parse";
 import { requireRole } from "@/lib/api/require-role";
 import { route } from "@/lib/api/route";
@@ -19,9 +20,9 @@ export const PATCH = route<Context>(async (request: NextRequest, context) => {
     if (!target) throw new ApiProblem(404, "not-found", `No user with id ${id}.`);
     if (target.role === "admin" && role !== "admin") {
       // Someone must still be able to manage users afterwards.
-      const admins = await trx.selectFrom("users").select((eb) => eb.fn.countAll<string>().as("count")).where("role", "=", "admin").executeTakeFirstOrThrow();
-      if (Number(admins.count) <= 1) {
-        throw new ApiProblem(409, "last-admin", "This is the only administrator; make another user admin first.", { field: "role" });
+      // Disabled administrators do not count: they cannot sign in.
+      if ((await activeAdminCount(trx)) <= 1) {
+        throw new ApiProblem(409, "last-admin", "This is the only active administrator; make another user admin (or enable one) first.", { field: "role" });
       }
     }
     return trx
