@@ -94,3 +94,19 @@ export async function readCaughtMail(id: string): Promise<CaughtMail | null> {
   if (!isCaughtMailId(id)) return null;
   return readMessageFile(path.join(/*turbopackIgnore: true*/ mailDir(), `${id}.json`));
 }
+
+/**
+ * What an administrator may read of a message: the secret parts of links (set-password tokens,
+ * personal calendar feed tokens) are masked, so reading the mail page never hands over someone
+ * else's account or calendar.
+ */
+export function maskSecrets(text: string): string {
+  return text
+    .replace(/(\/set-password\?token=)[A-Za-z0-9_-]+/g, "$1••••••")
+    .replace(/(\/api\/calendar\/)[A-Za-z0-9_-]{8,}/g, "$1••••••");
+}
+
+/** A caught message as the admin's mail page shows it: text, HTML and attachments' names with secrets masked. */
+export function maskedMail(message: CaughtMail): CaughtMail {
+  return { ...message, text: maskSecrets(message.text), html: maskSecrets(message.html) };
+}

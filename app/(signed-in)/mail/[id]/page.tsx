@@ -1,7 +1,7 @@
 import type { Metadata } from "next";
 import Link from "next/link";
 import { notFound } from "next/navigation";
-import { readCaughtMail } from "@/lib/mail/caught";
+import { maskedMail, readCaughtMail } from "@/lib/mail/caught";
 import { requirePageUser } from "@/lib/auth/session";
 import { siteTime } from "@/components/when";
 import { mainSite } from "../../_queries/site";
@@ -11,8 +11,10 @@ export const metadata: Metadata = { title: "Message" };
 export default async function MailMessagePage({ params }: { params: Promise<{ id: string }> }) {
   await requirePageUser("mail:read");
   const { id } = await params;
-  const [message, site] = await Promise.all([readCaughtMail(id), mainSite()]);
-  if (!message) notFound();
+  const [caught, site] = await Promise.all([readCaughtMail(id), mainSite()]);
+  if (!caught) notFound();
+  // Links that would sign in as someone else or read their calendar are masked.
+  const message = maskedMail(caught);
   const timeZone = site?.time_zone ?? "UTC";
   return (
     <div className="space-y-4">

@@ -1,6 +1,6 @@
 import { NextResponse, type NextRequest } from "next/server";
 import { z } from "zod";
-import { isCaughtMailId, readCaughtMail } from "@/lib/mail/caught";
+import { isCaughtMailId, maskedMail, readCaughtMail } from "@/lib/mail/caught";
 import { ApiProblem } from "@/lib/api/problem";
 import { parseParams } from "@/lib/api/parse";
 import { requireRole } from "@/lib/api/require-role";
@@ -16,5 +16,5 @@ export const GET = route<{ params: Promise<{ id: string }> }>(async (request: Ne
   const { id } = parseParams(await context.params, mailIdSchema);
   const message = await readCaughtMail(id);
   if (!message) throw new ApiProblem(404, "not-found", `No caught message with id ${id}.`);
-  return NextResponse.json({ message });
+  return NextResponse.json({ message: maskedMail(message) });
 });
