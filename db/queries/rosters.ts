@@ -11,6 +11,18 @@ export async function siteById(handle: Handle, siteId: number) {
   return (await handle.selectFrom("sites").selectAll().where("id", "=", siteId).executeTakeFirst()) ?? null;
 }
 
+/** The guards a new roster staffs: the site's guards still on the staff (not deactivated). */
+export async function activeGuardsOfSite(handle: Handle, siteId: number) {
+  return handle
+    .selectFrom("guards")
+    .select(["id", "name", "email", "contract_hours", "max_hours", "accepted_extra_hours", "skills", "user_id"])
+    .where("site_id", "=", siteId)
+    .where("active", "=", true)
+    .orderBy("id")
+    .execute();
+}
+
+/** Every guard of the site, deactivated ones too (names in rosters and their history). */
 export async function guardsOfSite(handle: Handle, siteId: number) {
   return handle
     .selectFrom("guards")

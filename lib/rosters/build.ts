@@ -3,7 +3,7 @@
 import type { Kysely } from "kysely";
 import type { Database } from "@/db/schema";
 import { approvedPostsForSite } from "@/db/queries/post-plans";
-import { approvedTimeOff, guardsOfSite, replaceDraft, siteById } from "@/db/queries/rosters";
+import { approvedTimeOff, activeGuardsOfSite, replaceDraft, siteById } from "@/db/queries/rosters";
 import type { Scenario } from "@/lib/scheduling/scenario";
 import { addLocalDays } from "@/lib/scheduling/time";
 import { buildRosterOffThread } from "./engine-thread";
@@ -51,7 +51,7 @@ export async function scenarioForWeek(db: Kysely<Database>, siteId: number, star
   const lastDay = addLocalDays(site.time_zone, startsOn, ROSTER_DAYS - 1);
   const [posts, guards, timeOff] = await Promise.all([
     postsForWeek(db, siteId, site.time_zone, startsOn),
-    guardsOfSite(db, siteId),
+    activeGuardsOfSite(db, siteId),
     approvedTimeOff(db, siteId, startsOn, lastDay),
   ]);
   if (posts.length === 0) {

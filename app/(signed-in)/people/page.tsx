@@ -3,20 +3,17 @@ import { db } from "@/db";
 import { requirePageUser } from "@/lib/auth/session";
 import { mainSite } from "../_queries/site";
 import { GuardsTable } from "./_components/guards-table";
+import { GuardEditor } from "./_components/guard-form";
+import { guardsForPeople } from "@/db/queries/guards";
+import { can } from "@/lib/auth/roles";
 
 export const metadata: Metadata = { title: "People" };
 
 export default async function PeoplePage() {
-  await requirePageUser("people:view");
+  const user = await requirePageUser("people:view");
+  const editable = can(user.role, "people:edit");
   const site = await mainSite();
-  const guards = site
-    ? await db
-        .selectFrom("guards")
-        .select(["id", "name", "email", "contract_hours", "max_hours", "skills"])
-        .where("site_id", "=", site.id)
-        .orderBy("name")
-        .execute()
-    : [];
+  const guards = site ? await guardsForPeople(db, site.id) : [];
   return (
     <div className="space-y-4">
       <div>
@@ -25,7 +22,12 @@ export default async function PeoplePage() {
           {guards.length} guards{site ? ` at ${site.name}` : ""}. Sort by a column heading; filter by name or skill.
         </p>
       </div>
-      <GuardsTable guards={guards} />
+      {site && editable && (
+        <section aria-label="Add a guard" className="card">
+          <GuardEditor siteId={site.id} guard={null} />
+        </section>
+      )}
+      <GuardsTable guards={guards} siteId={site?.id ?? null} editable={editable} />
     </div>
   );
 }

@@ -9,15 +9,33 @@ import {
   type SortingState,
 } from "@tanstack/react-table";
 import { useState } from "react";
-import type { GuardRow } from "@/db/schema";
+import { GuardEditor } from "./guard-form";
+
+export interface PeopleGuard {
+  id: number;
+  name: string;
+  email: string;
+  contractHours: number;
+  maxHours: number;
+  acceptedExtraHours: number | null;
+  skills: string[];
+  active: boolean;
+  lastSignInAt: string | null;
+}
 
 
-const column = createColumnHelper<GuardRow>();
-const columns = [
-  column.accessor("name", { header: "Name" }),
+const column = createColumnHelper<PeopleGuard>();
+const baseColumns = [
+  column.accessor("name", { header: "Name", cell: (info) => (
+    <span>
+      {info.getValue()}
+      {!info.row.original.active && <span className="ml-2 tag">left</span>}
+    </span>
+  ) }),
   column.accessor("email", { header: "E-mail" }),
-  column.accessor("contract_hours", { header: "Contract hours", cell: (info) => info.getValue() }),
-  column.accessor("max_hours", { header: "Max hours" }),
+  column.accessor("contractHours", { header: "Contract hours" }),
+  column.accessor("maxHours", { header: "Max hours" }),
+  column.accessor((row) => row.acceptedExtraHours ?? -1, { id: "extra", header: "Accepted extra", cell: (info) => (info.row.original.acceptedExtraHours === null ? "site default" : `${info.row.original.acceptedExtraHours} h`) }),
   column.accessor((row) => row.skills.join(", "), {
     id: "skills",
     header: "Skills",
@@ -34,7 +52,10 @@ const columns = [
   }),
 ];
 
-export function GuardsTable({ guards }: { guards: GuardRow[] }) {
+export function GuardsTable({ guards, siteId, editable }: { guards: PeopleGuard[]; siteId: number | null; editable: boolean }) {
+  const columns = editable && siteId !== null
+    ? [...baseColumns, column.display({ id: "actions", header: "Change", cell: (info) => <GuardEditor siteId={siteId} guard={info.row.original} /> })]
+    : baseColumns;
   const [sorting, setSorting] = useState<SortingState>([{ id: "name", desc: false }]);
   const [filter, setFilter] = useState("");
   const table = useReactTable({
