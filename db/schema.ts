@@ -217,7 +217,8 @@ export interface RosterUnfilled {
 export type RosterTotals = Pick<
   Totals,
   "postHours" | "filledPostHours" | "unfilledPostHours" | "paidHours" | "overtimeHours" | "cost" | "lowerBoundCost" | "gap"
-> & { [extra: string]: unknown };
+> &
+  Partial<Pick<Totals, "unfilledLowerBound" | "unfilledBoundReason">> & { [extra: string]: unknown };
 
 /** A broken hard rule (timestamps as ISO text). */
 export interface RosterViolation {

@@ -16,7 +16,7 @@ export default async function SignedInLayout({ children }: { children: React.Rea
       <a href="#main" className="sr-only focus:not-sr-only focus:absolute focus:left-2 focus:top-2 focus:z-50 focus:rounded-md focus:bg-white focus:px-3 focus:py-2">
         Skip to content
       </a>
-      <header className="bg-ink-800 text-stone-50">
+      <header className="bg-ink-800 text-stone-50 print:hidden">
         <div className="mx-auto flex max-w-page flex-wrap items-center justify-between gap-3 px-4 py-3">
           <Link href="/" className="text-xl font-bold text-stone-50 no-underline">
             <span aria-hidden="true" className="mr-1 text-brass-300">◎</span>Sightward

@@ -5,6 +5,7 @@ import { paidMs, type Roster } from "./roster";
 import type { Scenario } from "./scenario";
 import { HOUR } from "./time";
 import { weeklyLimitHours } from "./rules/weeklyMax";
+import { unfilledLowerBound } from "./unfilled-bound";
 
 export interface Totals {
   postHours: number;
@@ -16,6 +17,10 @@ export interface Totals {
   lowerBoundCost: number;
   /** (cost - lowerBoundCost) / lowerBoundCost. */
   gap: number;
+  /** No roster of this scenario leaves fewer post-hours unfilled (unfilled-bound.ts). */
+  unfilledLowerBound: number;
+  /** Why, in words; null when the bound is 0. */
+  unfilledBoundReason: string | null;
   /** Guards paid fewer hours than their contract, per week block. */
   contractUnderuse: { guard: string; week: number; paidHours: number; contractHours: number }[];
   /** Spread of late (ending 20:00 or later) and weekend shifts over the guards who work: fewest and most per guard. */
@@ -69,6 +74,10 @@ export function computeTotals(scenario: Scenario, demand: Demand, roster: Roster
     cost: round(cost),
     lowerBoundCost: round(lowerBoundCost),
     gap: lowerBoundCost > 0 ? round((cost - lowerBoundCost) / lowerBoundCost, 4) : 0,
+    ...(() => {
+      const bound = unfilledLowerBound(scenario, demand);
+      return { unfilledLowerBound: bound.postHours, unfilledBoundReason: bound.reason };
+    })(),
     contractUnderuse,
     fairness: fairnessOf(scenario, demand, roster),
   };

@@ -183,6 +183,37 @@ describe("operations builds and publishes a week; the guard sees it", () => {
     expect(versions).toEqual([]);
   });
 
+  it("prints the day's sign-in sheet from the published version: every guard on duty, with a line to sign", async () => {
+    const tuesday = new Date(`${WEEK}T12:00:00Z`);
+    tuesday.setUTCDate(tuesday.getUTCDate() + 1);
+    const date = tuesday.toISOString().slice(0, 10);
+    const onDuty = await db
+      .selectFrom("shifts")
+      .innerJoin("guards", "guards.id", "shifts.guard_id")
+      .select(["guards.name", "shifts.starts_at"])
+      .where("shifts.roster_id", "=", publishedId)
+      .execute();
+    const names = [...new Set(onDuty.filter((s) => new Date(s.starts_at).toLocaleDateString("en-CA", { timeZone: "Europe/Berlin" }) === date).map((s) => s.name))].sort();
+    expect(names.length).toBeGreaterThan(0);
+    const context = await newContext(browser);
+    const page = await context.newPage();
+    try {
+      await signInThroughForm(page, "operations@example.org", DEMO_PASSWORD);
+      await page.waitForURL((url) => url.pathname === "/");
+      await page.goto(`/staffing/sheet?date=${date}`);
+      const sheet = page.getByTestId("sign-in-sheet");
+      await shown(sheet);
+      const listed = (await sheet.locator("tbody tr td:first-child").allInnerTexts()).map((t) => t.trim());
+      expect([...new Set(listed)].sort()).toEqual(names);
+      // Printed, the page drops the navigation and keeps the sheet.
+      await page.emulateMedia({ media: "print" });
+      await expect(page.getByRole("navigation", { name: "Main" }).isVisible()).resolves.toBe(false);
+      await expect(sheet.isVisible()).resolves.toBe(true);
+    } finally {
+      await context.close();
+    }
+  });
+
   it("the server's job worker e-mails the guards", async () => {
     const deadline = Date.now() + 90_000;
     let status = "queued";

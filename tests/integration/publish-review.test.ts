@@ -82,6 +82,12 @@ describe("the demo museum's week", () => {
     for (const g of body.review.overContract) expect(g.plannedHours, g.name).toBeLessThanOrEqual(g.limitHours);
     // The demo contracts plus the default 8 extra hours stay within the 48 h legal maximum.
     for (const g of body.review.overContract) expect(g.limitHours).toBeLessThanOrEqual(48);
+    // 8 high-value posts and 8 guards with the skill: the week cannot be fully staffed, and the
+    // stored totals say how much at least stays unfilled, and why.
+    const totals = (await db.selectFrom("rosters").select("totals").where("id", "=", built.rosterId).executeTakeFirstOrThrow()).totals!;
+    expect(totals.unfilledLowerBound).toBeGreaterThan(0);
+    expect(totals.unfilledPostHours).toBeGreaterThanOrEqual(totals.unfilledLowerBound!);
+    expect(totals.unfilledBoundReason).toMatch(/high-value/);
   }, 120_000);
 });
 

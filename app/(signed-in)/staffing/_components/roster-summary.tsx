@@ -41,7 +41,16 @@ export function RosterSummary({ roster }: { roster: RosterView }) {
           <Total term="Cost" value={money(totals.cost)} />
           <Total term="Lower bound" value={money(totals.lowerBoundCost)} />
           <Total term="Gap to bound" value={`${(totals.gap * 100).toFixed(1)} %`} />
+          {typeof totals.unfilledLowerBound === "number" && <Total term="Unfilled at least" value={String(totals.unfilledLowerBound)} />}
         </dl>
+      )}
+      {totals && typeof totals.unfilledLowerBound === "number" && totals.unfilledPostHours > 0 && (
+        <p className="text-sm" data-testid="unfilled-bound">
+          {totals.unfilledPostHours <= totals.unfilledLowerBound + 1e-6
+            ? "This roster is as full as these guards allow: no roster can staff more post-hours. "
+            : `At least ${totals.unfilledLowerBound} of the ${totals.unfilledPostHours} unfilled post-hours cannot be staffed by any roster with these guards. `}
+          {totals.unfilledBoundReason ? `Why: ${totals.unfilledBoundReason}.` : ""}
+        </p>
       )}
       <div data-testid="empty-rooms">
         <h3>Rooms without a guard</h3>

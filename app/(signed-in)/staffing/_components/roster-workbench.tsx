@@ -162,6 +162,9 @@ export function RosterWorkbench({ initialWeek, initialRosterId = null }: { initi
             <a className="button-quiet" href={`/api/rosters/${shown.id}/csv`} download>
               Download CSV
             </a>
+            <a className="button-quiet" href={`/staffing/sheet?date=${shown.days.find((d) => d.opening !== null)?.date ?? shown.startsOn}`}>
+              Sign-in sheets
+            </a>
             {shown.status === "draft" && (
               <button
                 type="button"
