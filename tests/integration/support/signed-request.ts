@@ -21,12 +21,12 @@ export async function userByEmail(db: Kysely<Database>, email: string): Promise<
 }
 
 /** A GET (or JSON POST, PUT, PATCH …) request signed as `user`, or unsigned for null. */
-export async function signedRequest(user: SignedUser | null, url: string, body?: unknown, method = "POST"): Promise<NextRequest> {
+export async function signedRequest(user: SignedUser | null, url: string, body?: unknown, method?: string): Promise<NextRequest> {
   process.env.NEXTAUTH_SECRET ??= SECRET;
   const headers = new Headers({ "content-type": "application/json" });
   if (user) {
     const token = await encode({ token: { uid: user.id, role: user.role, email: user.email, name: user.name, signedInAt: Math.floor(Date.now() / 1000) }, secret: process.env.NEXTAUTH_SECRET });
     headers.set("cookie", `next-auth.session-token=${token}`);
   }
-  return new NextRequest(url, body === undefined ? { method: "GET", headers } : { method, headers, body: JSON.stringify(body) });
+  return new NextRequest(url, body === undefined ? { method: method ?? "GET", headers } : { method: method ?? "POST", headers, body: JSON.stringify(body) });
 }
