@@ -1,6 +1,30 @@
 // The site settings form and PUT /api/sites/[siteId]/settings share this schema (pure zod).
 import { z } from "zod";
-import { isCurrency, isLocale, isTimeZone } from "@/lib/format";
+import { isCalendarDate, isCurrency, isLocale, isTimeZone } from "@/lib/format";
+
+const clock = z.string().regex(/^([01]\d|2[0-3]):[0-5]\d$|^24:00$/, "use a time such as 10:00");
+/** One day's opening, [opens, closes] local time, or null for closed. */
+const span = z
+  .tuple([clock, clock])
+  .nullable()
+  .refine((s) => s === null || s[0] < s[1], "a day closes after it opens");
+const WEEKDAYS = ["mon", "tue", "wed", "thu", "fri", "sat", "sun"] as const;
+
+export const openingSchema = z.object({
+  weekly: z.object(Object.fromEntries(WEEKDAYS.map((d) => [d, span])) as Record<(typeof WEEKDAYS)[number], typeof span>),
+  dates: z
+    .record(z.string().refine(isCalendarDate, "a special day is a calendar date such as 2027-12-24"), span)
+    .refine((d) => Object.keys(d).length <= 366, "at most 366 special days"),
+});
+
+/** The site's labour-rule defaults (the engine's rules, lib/scheduling/scenario.ts): local law governs. */
+export const labourDefaultsSchema = z.object({
+  minRestHours: z.number().min(0, "rest cannot be negative").max(24, "at most 24 h of rest"),
+  maxShiftHours: z.number().min(1, "a shift lasts at least 1 h").max(16, "a shift lasts at most 16 h"),
+  minShiftHours: z.number().min(1, "a shift lasts at least 1 h").max(16, "a shift lasts at most 16 h"),
+  breakAfterHours: z.number().min(1).max(12, "a break comes within 12 h"),
+  breakMinutes: z.number().min(0, "a break cannot be negative").max(120, "at most 120 minutes of break"),
+}).refine((r) => r.minShiftHours <= r.maxShiftHours, { message: "the shortest shift cannot be longer than the longest", path: ["minShiftHours"] });
 
 export const siteSettingsSchema = z.object({
   timeZone: z.string().trim().refine(isTimeZone, "use an IANA time zone such as Europe/Berlin"),
@@ -12,6 +36,8 @@ export const siteSettingsSchema = z.object({
     .min(0, "accepted extra hours cannot be negative")
     .max(40, "at most 40 extra hours a week")
     .nullable(),
+  opening: openingSchema.optional(),
+  rules: labourDefaultsSchema.optional(),
 });
 export type SiteSettingsInput = z.infer<typeof siteSettingsSchema>;
 

@@ -4,6 +4,7 @@
 import { parseScenario, type Scenario } from "@/lib/scheduling/scenario";
 import { addLocalDays } from "@/lib/scheduling/time";
 import type { GuardRow, OpeningHours, SiteLabourRules } from "@/db/schema";
+import { LABOUR_DEFAULT_KEYS } from "@/lib/scheduling/labour-defaults";
 import { isTimeZone } from "@/lib/format";
 
 export const ROSTER_DAYS = 7;
@@ -21,6 +22,16 @@ export interface SiteRow {
  * (a default of this product, not a legal figure: contracts and local law govern).
  */
 export const DEFAULT_ACCEPTED_EXTRA_HOURS = 8;
+
+/** The engine rules a site sets in Settings (numbers only; anything else in labour_rules is ignored). */
+function siteRules(rules: SiteLabourRules | null | undefined): Record<string, number> {
+  const out: Record<string, number> = {};
+  for (const key of LABOUR_DEFAULT_KEYS) {
+    const value = rules?.[key];
+    if (typeof value === "number" && Number.isFinite(value)) out[key] = value;
+  }
+  return out;
+}
 
 /** The guard's own accepted extra hours, else the site's default, else DEFAULT_ACCEPTED_EXTRA_HOURS. */
 export function acceptedExtraHours(guard: Pick<GuardRow, "accepted_extra_hours">, site: Pick<SiteRow, "labour_rules">): number {
@@ -104,7 +115,8 @@ export function assembleScenario(rows: ScenarioRows): Scenario {
           .sort((a, b) => a.starts_on.localeCompare(b.starts_on))
           .map((off) => ({ start: `${off.starts_on}T00:00`, end: `${addLocalDays(zone, off.ends_on, 1)}T00:00` })),
       })),
-    rules: { hourlyRate: Number(rows.site.hourly_rate) },
+    // The site's labour-rule defaults (set in Settings) over the engine's own; local law governs.
+    rules: { ...siteRules(rows.site.labour_rules), hourlyRate: Number(rows.site.hourly_rate) },
   };
   const parsed = parseScenario(input);
   if (!parsed.ok) {

@@ -10,7 +10,7 @@ import { testDb } from "./support/server";
 const db = testDb();
 let browser: Browser;
 let siteId: number;
-let before: { currency: string; labour_rules: unknown };
+let before: { currency: string; labour_rules: unknown; opening_hours: unknown };
 
 async function shown(locator: Locator, timeout = 15_000): Promise<void> {
   await locator.waitFor({ state: "visible", timeout });
@@ -18,13 +18,17 @@ async function shown(locator: Locator, timeout = 15_000): Promise<void> {
 
 beforeAll(async () => {
   browser = await launchBrowser();
-  const site = await db.selectFrom("sites").select(["id", "currency", "labour_rules"]).orderBy("id").executeTakeFirstOrThrow();
+  const site = await db.selectFrom("sites").select(["id", "currency", "labour_rules", "opening_hours"]).orderBy("id").executeTakeFirstOrThrow();
   siteId = site.id;
-  before = { currency: site.currency, labour_rules: site.labour_rules };
+  before = { currency: site.currency, labour_rules: site.labour_rules, opening_hours: site.opening_hours };
 });
 
 afterAll(async () => {
-  await db.updateTable("sites").set({ currency: before.currency, labour_rules: JSON.stringify(before.labour_rules) }).where("id", "=", siteId).execute();
+  await db
+    .updateTable("sites")
+    .set({ currency: before.currency, labour_rules: JSON.stringify(before.labour_rules), opening_hours: JSON.stringify(before.opening_hours) })
+    .where("id", "=", siteId)
+    .execute();
   await browser?.close();
   await db.destroy();
 });
@@ -52,7 +56,14 @@ describe("site settings", () => {
       expect(saved.currency).toBe("GBP");
       expect((saved.labour_rules as { acceptedExtraHours?: number }).acceptedExtraHours).toBe(6);
       await page.reload();
-      await expect(page.getByRole("form", { name: `Settings of site ${siteId}` }).getByLabel("Currency").inputValue()).resolves.toBe("GBP");
+      const again = page.getByRole("form", { name: `Settings of site ${siteId}` });
+      await expect(again.getByLabel("Currency").inputValue()).resolves.toBe("GBP");
+      // Opening hours: Sunday closes at 19:00 now.
+      await again.getByLabel("Sunday closes").fill("19:00");
+      await again.getByRole("button", { name: "Save settings" }).click();
+      await shown(again.getByText(/^Settings saved\./));
+      const hours = await db.selectFrom("sites").select("opening_hours").where("id", "=", siteId).executeTakeFirstOrThrow();
+      expect(hours.opening_hours.weekly.sun).toEqual(["11:00", "19:00"]);
     } finally {
       await context.close();
     }

@@ -45,6 +45,30 @@ afterAll(async () => {
   await db.destroy();
 });
 
+describe("opening hours, special days and labour-rule defaults", () => {
+  it("saves them over the values shown, refuses a day that closes before it opens, and names no week to rebuild", async () => {
+    const shown = (await siteSettings(db, siteId))!;
+    const previous = { timeZone: shown.timeZone, locale: shown.locale, currency: shown.currency, hourlyRate: shown.hourlyRate, acceptedExtraHours: shown.acceptedExtraHours, opening: shown.opening, rules: shown.rules };
+    const bad = await put(admin, { previous, settings: { ...previous, opening: { ...shown.opening!, weekly: { ...shown.opening!.weekly, tue: ["18:00", "10:00"] } } } });
+    expect(bad.status).toBe(422);
+    expect(bad.body.error.field).toBe("settings.opening.weekly.tue");
+    expect(bad.body.error.message).toMatch(/closes after it opens/);
+    const next = {
+      ...previous,
+      opening: { weekly: { ...shown.opening!.weekly, tue: ["10:00", "20:00"], mon: null }, dates: { "2099-12-24": null, "2099-12-31": ["10:00", "15:00"] } },
+      rules: { ...shown.rules!, minRestHours: 12, breakMinutes: 45 },
+    };
+    const saved = await put(admin, { previous, settings: next });
+    expect(saved.status).toBe(200);
+    expect(saved.body.settings.opening).toEqual(next.opening);
+    expect(saved.body.settings.rules).toMatchObject({ minRestHours: 12, breakMinutes: 45, maxShiftHours: 10 });
+    expect(saved.body.rebuild).toEqual([]);
+    // The stale copy of the opening hours is refused.
+    const stale = await put(admin, { previous, settings: { ...previous, hourlyRate: 99 } });
+    expect(stale.status).toBe(409);
+  });
+});
+
 describe("site settings", () => {
   it("reads them for admins only", async () => {
     const ok = await GET(await signedRequest(admin, `http://127.0.0.1/api/sites/${siteId}/settings`), context());

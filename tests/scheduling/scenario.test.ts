@@ -47,3 +47,12 @@ describe("parseScenario", () => {
     expect(parsed.errors).toEqual([{ field: "guards.1.id", message: "duplicate guard id G1" }]);
   });
 });
+
+describe("the labour-rule defaults Settings offers", () => {
+  it("are the engine's own defaults, one set of numbers", async () => {
+    const { ENGINE_LABOUR_DEFAULTS, LABOUR_DEFAULT_KEYS } = await import("@/lib/scheduling/labour-defaults");
+    const { rulesSchema } = await import("@/lib/scheduling/scenario");
+    const engine = rulesSchema.parse({});
+    for (const key of LABOUR_DEFAULT_KEYS) expect(ENGINE_LABOUR_DEFAULTS[key], key).toBe(engine[key]);
+  });
+});

@@ -1,30 +1,86 @@
 "use client";
-// A site's settings, edited by an admin: time zone, locale, currency, the hourly rate and the extra
-// hours a week a guard accepts by default. Saved over the values shown; a conflict says so.
+// A site's settings, edited by an admin: time zone, locale, currency, the hourly rate, the extra
+// hours a week a guard accepts by default, the opening hours per weekday and on special days, and the
+// labour-rule defaults. Saved over the values shown; a conflict says so; a change that affects
+// published rosters names the weeks to rebuild.
 import { useState } from "react";
-import { useForm } from "react-hook-form";
+import { useFieldArray, useForm } from "react-hook-form";
 import { apiFetch, ApiRequestError } from "@/lib/api/client";
 import { siteSettingsSchema, type SiteSettingsInput } from "@/lib/api/site-settings";
+import { ENGINE_LABOUR_DEFAULTS, LABOUR_DEFAULT_KEYS } from "@/lib/scheduling/labour-defaults";
+
+const WEEKDAYS = [
+  ["mon", "Monday"],
+  ["tue", "Tuesday"],
+  ["wed", "Wednesday"],
+  ["thu", "Thursday"],
+  ["fri", "Friday"],
+  ["sat", "Saturday"],
+  ["sun", "Sunday"],
+] as const;
+type Weekday = (typeof WEEKDAYS)[number][0];
+
+const RULE_LABELS: Record<(typeof LABOUR_DEFAULT_KEYS)[number], { label: string; hint: string }> = {
+  minRestHours: { label: "Rest between shifts (h)", hint: "11 h in the EU (Directive 2003/88/EC, Art. 3)" },
+  maxShiftHours: { label: "Longest shift (h)", hint: "" },
+  minShiftHours: { label: "Shortest shift (h)", hint: "" },
+  breakAfterHours: { label: "Break after (h of work)", hint: "a break past 6 h in the EU (Art. 4)" },
+  breakMinutes: { label: "Break length (minutes)", hint: "national law sets it" },
+};
 
 // The form holds text; the schema's numbers come from it.
+interface DayRow {
+  closed: boolean;
+  opens: string;
+  closes: string;
+}
 interface FormValues {
   timeZone: string;
   locale: string;
   currency: string;
   hourlyRate: string;
   acceptedExtraHours: string;
+  weekly: Record<Weekday, DayRow>;
+  dates: (DayRow & { date: string })[];
+  rules: Record<(typeof LABOUR_DEFAULT_KEYS)[number], string>;
 }
 
+const row = (span: [string, string] | null | undefined): DayRow => (span ? { closed: false, opens: span[0], closes: span[1] } : { closed: true, opens: "10:00", closes: "18:00" });
+const spanOf = (r: DayRow): [string, string] | null => (r.closed ? null : [r.opens, r.closes]);
+
 function toForm(s: SiteSettingsInput): FormValues {
-  return { ...s, hourlyRate: String(s.hourlyRate), acceptedExtraHours: s.acceptedExtraHours === null ? "" : String(s.acceptedExtraHours) };
+  const rules = { ...ENGINE_LABOUR_DEFAULTS, ...(s.rules ?? {}) };
+  return {
+    timeZone: s.timeZone,
+    locale: s.locale,
+    currency: s.currency,
+    hourlyRate: String(s.hourlyRate),
+    acceptedExtraHours: s.acceptedExtraHours === null ? "" : String(s.acceptedExtraHours),
+    weekly: Object.fromEntries(WEEKDAYS.map(([d]) => [d, row(s.opening?.weekly[d])])) as Record<Weekday, DayRow>,
+    dates: Object.entries(s.opening?.dates ?? {})
+      .sort(([a], [b]) => a.localeCompare(b))
+      .map(([date, span]) => ({ date, ...row(span) })),
+    rules: Object.fromEntries(LABOUR_DEFAULT_KEYS.map((k) => [k, String(rules[k])])) as FormValues["rules"],
+  };
 }
 
 function fromForm(v: FormValues): unknown {
   const number = (text: string) => (text.trim() === "" ? Number.NaN : Number(text.replace(",", ".")));
-  return { ...v, hourlyRate: number(v.hourlyRate), acceptedExtraHours: v.acceptedExtraHours.trim() === "" ? null : number(v.acceptedExtraHours) };
+  return {
+    timeZone: v.timeZone,
+    locale: v.locale,
+    currency: v.currency,
+    hourlyRate: number(v.hourlyRate),
+    acceptedExtraHours: v.acceptedExtraHours.trim() === "" ? null : number(v.acceptedExtraHours),
+    opening: {
+      weekly: Object.fromEntries(WEEKDAYS.map(([d]) => [d, spanOf(v.weekly[d])])),
+      dates: Object.fromEntries(v.dates.map((d) => [d.date, spanOf(d)])),
+    },
+    rules: Object.fromEntries(LABOUR_DEFAULT_KEYS.map((k) => [k, number(v.rules[k])])),
+  };
 }
 
-const FIELDS: { name: keyof FormValues; label: string; hint: string; inputMode?: "decimal" }[] = [
+const FIELDS: { name: "timeZone" | "locale" | "currency" | "hourlyRate" | "acceptedExtraHours"; label: string; hint: string; inputMode?: "decimal" }[] = [
   { name: "timeZone", label: "Time zone", hint: "IANA name, e.g. Europe/Berlin" },
   { name: "locale", label: "Locale", hint: "how dates and numbers read, e.g. en-GB" },
   { name: "currency", label: "Currency", hint: "ISO 4217 code, e.g. EUR" },
@@ -42,52 +98,106 @@ export function SiteSettingsForm({ siteId, initial }: { siteId: number; initial:
       const parsed = siteSettingsSchema.safeParse(fromForm(values));
       if (parsed.success) return { values, errors: {} };
       const errors: Record<string, { type: string; message: string }> = {};
-      for (const issue of parsed.error.issues) errors[String(issue.path[0])] ??= { type: "invalid", message: issue.message };
+      for (const issue of parsed.error.issues) {
+        // Opening and rules errors are shown beside their section, named by day or rule.
+        const [head, kind, key] = issue.path.map(String);
+        const where = head === "opening" ? (kind === "weekly" ? WEEKDAYS.find(([d]) => d === key)?.[1] ?? key : `the special day ${key ?? ""}`) : head === "rules" ? RULE_LABELS[kind as keyof typeof RULE_LABELS]?.label ?? kind : null;
+        const field = head === "opening" ? "opening" : head === "rules" ? "rules" : head!;
+        errors[field] ??= { type: "invalid", message: where ? `${where}: ${issue.message}` : issue.message };
+      }
       return { values: {}, errors };
     },
   });
-  const errors = form.formState.errors;
+  const dates = useFieldArray({ control: form.control, name: "dates" });
+  const errors = form.formState.errors as Record<string, { message?: string } | undefined>;
+  const weekly = form.watch("weekly");
+  const special = form.watch("dates");
 
   async function save(values: FormValues) {
     setMessage(null);
     try {
-      const { settings } = await apiFetch<{ settings: SiteSettingsInput }>(`/api/sites/${siteId}/settings`, {
+      const { settings, rebuild } = await apiFetch<{ settings: SiteSettingsInput; rebuild: string[] }>(`/api/sites/${siteId}/settings`, {
         method: "PUT",
         body: { previous: saved, settings: siteSettingsSchema.parse(fromForm(values)) },
       });
       setSaved(settings);
       form.reset(toForm(settings));
-      setMessage({ kind: "ok", text: "Settings saved. New rosters use them; rosters already built keep theirs." });
+      const weeks = rebuild.length ? ` Published weeks that started before this change: ${rebuild.join(", ")}; rebuild them on Staffing to use it.` : "";
+      setMessage({ kind: "ok", text: `Settings saved. New rosters use them; rosters already built keep theirs.${weeks}` });
     } catch (error) {
       setMessage({ kind: "error", text: error instanceof ApiRequestError ? error.message : "The settings could not be saved; try again." });
     }
   }
 
+  const id = (name: string) => `site-${siteId}-${name}`;
   return (
-    <form noValidate className="mt-4 space-y-3" onSubmit={form.handleSubmit(save)} aria-label={`Settings of site ${siteId}`}>
+    <form noValidate className="mt-4 space-y-5" onSubmit={form.handleSubmit(save)} aria-label={`Settings of site ${siteId}`}>
       <div className="grid gap-3 sm:grid-cols-2">
         {FIELDS.map((field) => {
-          const id = `site-${siteId}-${field.name}`;
           const error = errors[field.name]?.message;
           return (
             <div key={field.name}>
-              <label htmlFor={id} className="field-label">{field.label}</label>
-              <input
-                id={id}
-                className="field-input"
-                inputMode={field.inputMode}
-                aria-invalid={error ? true : undefined}
-                aria-describedby={`${id}-hint`}
-                {...form.register(field.name)}
-              />
-              <p id={`${id}-hint`} className={error ? "text-sm text-alert-700" : "text-sm text-stone-700"} role={error ? "alert" : undefined}>
+              <label htmlFor={id(field.name)} className="field-label">{field.label}</label>
+              <input id={id(field.name)} className="field-input" inputMode={field.inputMode} aria-invalid={error ? true : undefined} aria-describedby={`${id(field.name)}-hint`} {...form.register(field.name)} />
+              <p id={`${id(field.name)}-hint`} className={error ? "text-sm text-alert-700" : "text-sm text-stone-700"} role={error ? "alert" : undefined}>
                 {error ?? field.hint}
               </p>
             </div>
           );
         })}
       </div>
-      <p className="text-sm text-stone-700">Labour-rule defaults are the product&apos;s starting point; contracts and local law govern.</p>
+
+      <fieldset className="space-y-2">
+        <legend className="font-semibold">Weekly opening</legend>
+        {WEEKDAYS.map(([day, label]) => (
+          <div key={day} className="flex flex-wrap items-center gap-3 text-sm">
+            <span className="w-24 font-semibold">{label}</span>
+            <label className="flex items-center gap-1">
+              <input type="checkbox" {...form.register(`weekly.${day}.closed`)} /> closed
+            </label>
+            <label className="flex items-center gap-1">
+              opens <input type="time" className="field-input mt-0 w-32" aria-label={`${label} opens`} disabled={weekly[day]?.closed} {...form.register(`weekly.${day}.opens`)} />
+            </label>
+            <label className="flex items-center gap-1">
+              closes <input type="time" className="field-input mt-0 w-32" aria-label={`${label} closes`} disabled={weekly[day]?.closed} {...form.register(`weekly.${day}.closes`)} />
+            </label>
+          </div>
+        ))}
+      </fieldset>
+
+      <fieldset className="space-y-2">
+        <legend className="font-semibold">Special days (closures, late openings)</legend>
+        {dates.fields.length === 0 && <p className="text-sm text-stone-700">None.</p>}
+        {dates.fields.map((field, i) => (
+          <div key={field.id} className="flex flex-wrap items-center gap-3 text-sm">
+            <input type="date" className="field-input mt-0 w-44" aria-label={`Special day ${i + 1}`} {...form.register(`dates.${i}.date`)} />
+            <label className="flex items-center gap-1">
+              <input type="checkbox" {...form.register(`dates.${i}.closed`)} /> closed
+            </label>
+            <input type="time" className="field-input mt-0 w-32" aria-label={`Special day ${i + 1} opens`} disabled={special[i]?.closed} {...form.register(`dates.${i}.opens`)} />
+            <input type="time" className="field-input mt-0 w-32" aria-label={`Special day ${i + 1} closes`} disabled={special[i]?.closed} {...form.register(`dates.${i}.closes`)} />
+            <button type="button" className="button-quiet" onClick={() => dates.remove(i)}>Remove</button>
+          </div>
+        ))}
+        <button type="button" className="button-quiet" onClick={() => dates.append({ date: "", closed: true, opens: "10:00", closes: "18:00" })}>Add a special day</button>
+        {errors.opening && <p role="alert" className="text-sm text-alert-700">{errors.opening.message}</p>}
+      </fieldset>
+
+      <fieldset className="space-y-2">
+        <legend className="font-semibold">Labour-rule defaults</legend>
+        <div className="grid gap-3 sm:grid-cols-3">
+          {LABOUR_DEFAULT_KEYS.map((key) => (
+            <div key={key}>
+              <label htmlFor={id(`rule-${key}`)} className="field-label">{RULE_LABELS[key].label}</label>
+              <input id={id(`rule-${key}`)} className="field-input" inputMode="decimal" {...form.register(`rules.${key}`)} />
+              {RULE_LABELS[key].hint && <p className="text-xs text-stone-700">{RULE_LABELS[key].hint}</p>}
+            </div>
+          ))}
+        </div>
+        {errors.rules && <p role="alert" className="text-sm text-alert-700">{errors.rules.message}</p>}
+        <p className="text-sm text-stone-700">These are the product&apos;s starting point; contracts and local law govern.</p>
+      </fieldset>
+
       <div className="flex flex-wrap items-center gap-3">
         <button type="submit" className="button" disabled={form.formState.isSubmitting || !form.formState.isDirty}>Save settings</button>
         {message && (

@@ -2,7 +2,7 @@
 // current values when someone saved others meanwhile, 422 naming the field for a bad value.
 import { NextResponse, type NextRequest } from "next/server";
 import { db } from "@/db";
-import { saveSiteSettings, siteSettings } from "@/db/queries/site-settings";
+import { publishedWeeksFrom, saveSiteSettings, siteSettings } from "@/db/queries/site-settings";
 import { siteIdParams } from "@/lib/api/galleries";
 import { ApiProblem } from "@/lib/api/problem";
 import { parseBody, parseParams } from "@/lib/api/parse";
@@ -32,5 +32,11 @@ export const PUT = route<Context>(async (request: NextRequest, context) => {
     const current = await siteSettings(db, siteId);
     throw new ApiProblem(409, "settings-changed", "Someone saved other settings for this site meanwhile; nothing was changed. Reload to see them, then make your change again.", { current });
   }
-  return NextResponse.json({ settings: saved });
+  // Published rosters keep the settings they were built with: name the weeks to rebuild.
+  const changesRosters =
+    JSON.stringify([previous.opening, previous.rules, previous.acceptedExtraHours, previous.hourlyRate]) !==
+    JSON.stringify([settings.opening ?? previous.opening, settings.rules ?? previous.rules, settings.acceptedExtraHours, settings.hourlyRate]);
+  const today = new Intl.DateTimeFormat("en-CA", { timeZone: saved.timeZone }).format(new Date());
+  const rebuild = changesRosters ? await publishedWeeksFrom(db, siteId, today) : [];
+  return NextResponse.json({ settings: saved, rebuild });
 });
