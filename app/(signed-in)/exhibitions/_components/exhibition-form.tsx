@@ -133,7 +133,7 @@ export function ExhibitionForm({ siteId, siteRooms, initial, onDone }: { siteId:
                       </label>
                     </td>
                     <td>
-                      <select aria-label={`Risk of ${room.name}`} className="field-input" disabled={!on} {...form.register(`rooms.${i}.riskLevel`)}>
+                      <select aria-label={`Risk of ${room.name}`} className="field-input min-w-[8rem]" disabled={!on} {...form.register(`rooms.${i}.riskLevel`)}>
                         <option value="standard">standard</option>
                         <option value="high">high</option>
                       </select>
