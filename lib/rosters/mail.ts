@@ -1,6 +1,8 @@
 // The publish mail job: every guard with shifts in a published roster gets an e-mail listing them
-// in the site's time zone, with the shifts as an iCalendar attachment. Guards already mailed by an
-// earlier attempt of the same job (recorded in its result) are not mailed twice.
+// in the site's time zone, with the shifts as an iCalendar attachment. A version that replaces an
+// earlier one mails only the guards whose shifts changed (a guard with none left is told so), and
+// says what changed. Guards already mailed by an earlier attempt of the same job (recorded in its
+// result) are not mailed twice.
 import type { Kysely } from "kysely";
 import { TZDate } from "@date-fns/tz";
 import { format } from "date-fns";
@@ -36,7 +38,12 @@ export async function mailPublishedRoster(
   const zone = site.time_zone;
   const rooms = roomsOfScenario(roster.scenario);
   const shifts = await shiftsOfRoster(db, roster.id);
-  const guardIds = [...new Set(shifts.map((s) => s.guard_id))];
+  // The version this one replaces: only the guards whose shifts differ are mailed.
+  const before = roster.supersedes ? await shiftsOfRoster(db, roster.supersedes) : null;
+  const plan = (list: typeof shifts, guard: number) =>
+    JSON.stringify(list.filter((s) => s.guard_id === guard).map((s) => [s.starts_at.getTime(), s.ends_at.getTime(), s.segments, s.breaks]));
+  const everyone = [...new Set([...shifts.map((s) => s.guard_id), ...(before ?? []).map((s) => s.guard_id)])];
+  const guardIds = before ? everyone.filter((id) => plan(shifts, id) !== plan(before, id)) : everyone;
   const guards = guardIds.length
     ? await db.selectFrom("guards").select(["id", "name", "email", "calendar_token"]).where("id", "in", guardIds).orderBy("id").execute()
     : [];
@@ -51,15 +58,26 @@ export async function mailPublishedRoster(
       .map((s) => ({ ...s, roster_version: roster.version }));
     const lines = own.map((s) => `${shiftWhen(s, zone)}\n${shiftPlan(s, zone, rooms).map((line) => `  ${line}`).join("\n")}`);
     const feed = feedUrl(guard.calendar_token);
+    // What changed since the replaced version: shifts gone and shifts new, by their times.
+    const key = (s: { starts_at: Date; ends_at: Date }) => `${s.starts_at.getTime()}-${s.ends_at.getTime()}`;
+    const old = (before ?? []).filter((s) => s.guard_id === guard.id);
+    const gone = old.filter((s) => !own.some((n) => key(n) === key(s)));
+    const added = own.filter((s) => !old.some((o) => key(o) === key(s)));
+    const changed = before
+      ? [
+          "What changed since the earlier version:",
+          ...gone.map((s) => `  no longer: ${shiftWhen(s, zone)}`),
+          ...added.map((s) => `  new: ${shiftWhen(s, zone)}`),
+          ...(gone.length === 0 && added.length === 0 ? ["  the same times, with other posts or breaks (see below)"] : []),
+          "",
+        ]
+      : [];
     const text = [
       `Hello ${guard.name},`,
       "",
       `the roster for the week of ${week} at ${site.name} is published (version ${roster.version}${roster.supersedes ? ", replacing the earlier version" : ""}).`,
-      `Your shifts (times in ${zone}):`,
-      "",
-      ...lines,
-      "",
-      "The attached shifts.ics adds them to your calendar.",
+      ...changed,
+      ...(own.length > 0 ? [`Your shifts (times in ${zone}):`, "", ...lines, "", "The attached shifts.ics adds them to your calendar."] : ["You have no shifts in this week any more."]),
       ...(feed ? [`Your personal calendar feed stays current with every new version: ${feed}`] : []),
       "",
       "Sightward",
@@ -72,9 +90,9 @@ export async function mailPublishedRoster(
     try {
       await sendMail({
         to: guard.email,
-        subject: `Your shifts, week of ${week} (version ${roster.version})`,
+        subject: `${before ? "Changed shifts" : "Your shifts"}, week of ${week} (version ${roster.version})`,
         text,
-        attachments: [{ filename: "shifts.ics", content: ics, contentType: "text/calendar; charset=utf-8; method=PUBLISH" }],
+        attachments: own.length > 0 ? [{ filename: "shifts.ics", content: ics, contentType: "text/calendar; charset=utf-8; method=PUBLISH" }] : [],
       });
     } catch (error) {
       if (!isPassingMailFailure(error)) throw error;
@@ -86,7 +104,8 @@ export async function mailPublishedRoster(
     sent.push(guard.id);
     await progress(done / guards.length, `mailed ${sent.length} of ${guards.length} guards`, { sent });
   }
-  return { sent, summary: `mailed ${guards.length} guards their shifts of version ${roster.version}` };
+  const unchanged = before ? everyone.length - guardIds.length : 0;
+  return { sent, summary: `mailed ${guards.length} guards their shifts of version ${roster.version}${before ? ` (${unchanged} with unchanged shifts not mailed)` : ""}` };
 }
 
 /**
