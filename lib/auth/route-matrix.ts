@@ -60,6 +60,7 @@ export const ROUTE_MATRIX: Readonly<Record<string, RouteAccess>> = {
   "POST /api/rosters/[id]/publish": "rosters:publish",
   "GET /api/jobs/[id]": "staffing:view",
   "POST /api/guards": "people:edit",
+  "POST /api/guards/import": "people:edit",
   "PUT /api/guards/[id]": "people:edit",
 
   "GET /api/users": "users:manage",

@@ -13,6 +13,7 @@ import { createDb } from "@/db";
 import type { Database } from "@/db/schema";
 import { POST } from "@/app/api/guards/route";
 import { PUT } from "@/app/api/guards/[id]/route";
+import { POST as importStaff } from "@/app/api/guards/import/route";
 import { createSite } from "@/db/queries/galleries";
 import { activeGuardsOfSite } from "@/db/queries/rosters";
 import { NO_PASSWORD } from "@/db/queries/accounts";
@@ -25,6 +26,7 @@ let siteId: number;
 let operations: SignedUser;
 let curator: SignedUser;
 const EMAIL = `new.guard.${process.pid}@example.org`;
+const IMPORTED = [`import.one.${process.pid}@example.org`, `import.two.${process.pid}@example.org`];
 
 const json = async (response: Response) => ({ status: response.status, body: (await response.json()) as Record<string, any> });
 const add = async (user: SignedUser, body: unknown) => json(await POST(await signedRequest(user, "http://127.0.0.1/api/guards", body), { params: Promise.resolve({}) }));
@@ -42,7 +44,7 @@ beforeAll(async () => {
 
 afterAll(async () => {
   await db.deleteFrom("sites").where("id", "=", siteId).execute();
-  await db.deleteFrom("users").where("email", "=", EMAIL).execute();
+  await db.deleteFrom("users").where("email", "in", [EMAIL, ...IMPORTED]).execute();
   await db.destroy();
 });
 
@@ -90,5 +92,31 @@ describe("People", () => {
     expect(await guardCount()).toBe(1);
     expect((await edit(curator, guardId, { ...fields, active: true })).status).toBe(403);
     expect((await edit(operations, 2_000_000_000, { ...fields, active: true })).status).toBe(404);
+  });
+
+  it("imports staff from CSV: a bad file saves nothing; a good one adds every guard, previewed first", async () => {
+    const ask = async (csv: string, dryRun: boolean) => json(await importStaff(await signedRequest(operations, "http://127.0.0.1/api/guards/import", { siteId, csv, dryRun }), { params: Promise.resolve({}) }));
+    const before = await guardCount();
+    const bad = await ask(`name,email,contract_hours\nOne,${IMPORTED[0]},30\nTwo,${IMPORTED[1]},99\n`, false);
+    expect(bad.status).toBe(422);
+    expect(bad.body.error.problems).toContainEqual({ line: 3, column: "contract_hours", message: expect.stringMatching(/at most 60/) });
+    expect(bad.body.error.problems.every((p: { line: number }) => p.line === 3)).toBe(true);
+    expect(await guardCount()).toBe(before);
+    // An address already on the staff is a problem of the file too.
+    const taken = await ask(`name,email,contract_hours\nAgain,${EMAIL},30\n`, true);
+    expect(taken.status).toBe(422);
+    expect(taken.body.error.problems[0]).toMatchObject({ line: 2, column: "email" });
+    const good = `name,email,contract_hours,skills\nOne,${IMPORTED[0]},30,first-aid\nTwo,${IMPORTED[1]},20,\n`;
+    const preview = await ask(good, true);
+    expect(preview.status).toBe(200);
+    expect(preview.body.preview.map((r: { email: string }) => r.email)).toEqual(IMPORTED);
+    expect(await guardCount()).toBe(before);
+    const done = await ask(good, false);
+    expect(done.status).toBe(201);
+    expect(done.body.imported).toHaveLength(2);
+    expect(await guardCount()).toBe(before + 2);
+    const accounts = await db.selectFrom("users").select(["email", "role"]).where("email", "in", IMPORTED).orderBy("email").execute();
+    expect(accounts).toEqual(IMPORTED.map((email) => ({ email, role: "guard" })).sort((a, b) => a.email.localeCompare(b.email)));
+    expect((await importStaff(await signedRequest(curator, "http://127.0.0.1/api/guards/import", { siteId, csv: good }), { params: Promise.resolve({}) })).status).toBe(403);
   });
 });

@@ -4,6 +4,7 @@ import { requirePageUser } from "@/lib/auth/session";
 import { mainSite } from "../_queries/site";
 import { GuardsTable } from "./_components/guards-table";
 import { GuardEditor } from "./_components/guard-form";
+import { StaffImport } from "./_components/staff-import";
 import { guardsForPeople } from "@/db/queries/guards";
 import { can } from "@/lib/auth/roles";
 
@@ -23,8 +24,9 @@ export default async function PeoplePage() {
         </p>
       </div>
       {site && editable && (
-        <section aria-label="Add a guard" className="card">
+        <section aria-label="Add guards" className="card space-y-4">
           <GuardEditor siteId={site.id} guard={null} />
+          <StaffImport siteId={site.id} />
         </section>
       )}
       <GuardsTable guards={guards} siteId={site?.id ?? null} editable={editable} />
