@@ -8,7 +8,7 @@ import type { Scenario } from "@/lib/scheduling/scenario";
 import { addLocalDays } from "@/lib/scheduling/time";
 import { buildRosterOffThread } from "./engine-thread";
 import { assembleScenario, ROSTER_DAYS, type PostRow } from "./scenario";
-import { storedRoster, storedTotals, storedViolations } from "./stored";
+import { storedRoster, storedTotals, storedViolations, withGuardNames } from "./stored";
 import { postLabels } from "./shift-events";
 
 export interface BuildRequest {
@@ -72,7 +72,8 @@ export async function buildDraftRoster(db: Kysely<Database>, request: BuildReque
     onWorking: (seconds) => progress(Math.min(0.85, 0.15 + seconds / 60), `staffing ${scenario.posts.length} posts with ${scenario.guards.length} guards (${seconds} s)`),
   });
   await progress(0.9, "storing the draft");
-  const stored = storedRoster(result.roster);
+  const labels = postLabels(scenario);
+  const stored = storedRoster(result.roster, (text) => withGuardNames(text, guardNames, labels));
   const roster = await db.transaction().execute((trx) =>
     replaceDraft(trx, {
       siteId: request.siteId,

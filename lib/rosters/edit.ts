@@ -168,7 +168,7 @@ export async function reassignInDraft(db: Kysely<Database>, request: ReassignReq
     if (!outcome.ok) throw new RosterProblem(422, outcome.code, outcome.message, outcome.violations ? { violations: outcome.violations } : {});
     const after = outcome.after;
 
-    const stored = storedRoster(outcome.roster);
+    const stored = storedRoster(outcome.roster, (text) => withGuardNames(text, names, labels));
     await trx.deleteFrom("shifts").where("roster_id", "=", roster.id).execute();
     await insertShifts(trx, roster.id, stored.shifts);
     const updated = await trx

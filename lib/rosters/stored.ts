@@ -33,10 +33,11 @@ export function storedShift(shift: EngineShift): StoredShift {
   };
 }
 
-export function storedRoster(roster: Roster): StoredRoster {
+/** The roster as stored; `words` turns the engine's ids in unfilled reasons into names (withGuardNames). */
+export function storedRoster(roster: Roster, words: (text: string) => string = (text) => text): StoredRoster {
   return {
     shifts: roster.shifts.map(storedShift),
-    unfilled: roster.unfilled.map((u) => ({ post: u.post, start: iso(u.start), end: iso(u.end), reason: u.reason })),
+    unfilled: roster.unfilled.map((u) => ({ post: u.post, start: iso(u.start), end: iso(u.end), reason: words(u.reason) })),
   };
 }
 

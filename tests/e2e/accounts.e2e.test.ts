@@ -51,6 +51,7 @@ describe("inviting and disabling", () => {
       await signInThroughForm(admin, "admin@example.org", DEMO_PASSWORD);
       await admin.waitForURL((url) => url.pathname === "/");
       await admin.goto("/users");
+      await admin.waitForLoadState("networkidle");
       const form = admin.getByRole("form", { name: "Invite a person" });
       await form.getByLabel("Name").fill("Edda Example");
       await form.getByLabel("E-mail").fill(EMAIL);
@@ -64,6 +65,7 @@ describe("inviting and disabling", () => {
       const person = await personContext.newPage();
       try {
         await person.goto(link.replace(/^https?:\/\/[^/]+/, ""));
+        await person.waitForLoadState("networkidle");
         await person.getByLabel("New password").fill(PASSWORD);
         await person.getByLabel("The same password again").fill("a different password");
         await person.getByRole("button", { name: "Set password" }).click();
@@ -79,6 +81,7 @@ describe("inviting and disabling", () => {
       }
 
       await admin.reload();
+      await admin.waitForLoadState("networkidle");
       const row = admin.getByRole("row", { name: /Edda Example/ });
       await row.getByRole("button", { name: "Disable Edda Example" }).click();
       await shown(row.getByText("Edda Example can no longer sign in."));
@@ -92,6 +95,7 @@ describe("inviting and disabling", () => {
         await refusedContext.close();
       }
       await admin.reload();
+      await admin.waitForLoadState("networkidle");
       await admin.getByRole("row", { name: /Edda Example/ }).getByRole("button", { name: "Enable Edda Example" }).click();
       await expect.poll(async () => (await db.selectFrom("users").select("disabled_at").where("email", "=", EMAIL).executeTakeFirstOrThrow()).disabled_at).toBeNull();
     } finally {

@@ -41,6 +41,7 @@ describe("exhibitions", () => {
     const page = await signedInPage("operations");
     try {
       await page.goto("/exhibitions");
+      await page.waitForLoadState("networkidle");
       await page.getByRole("button", { name: "New exhibition" }).click();
       const form = page.getByRole("form", { name: "New exhibition" });
       await form.getByLabel("Name").fill(NAME);
@@ -73,6 +74,7 @@ describe("exhibitions", () => {
       // The Print Room's page plans for the new exhibition (the next to open for this room).
       const printRoom = await db.selectFrom("rooms").select("id").where("name", "=", "Print Room").executeTakeFirstOrThrow();
       await page.goto(`/galleries/${printRoom.id}`);
+      await page.waitForLoadState("networkidle");
       await shown(page.getByText(new RegExp(`in ${NAME} \\(high risk\\)`)));
       await page.getByRole("button", { name: "Compute and save plan" }).click();
       await shown(page.getByText(/Plan \d+ proposed:/), 60_000);

@@ -43,6 +43,7 @@ describe("running the galleries", () => {
       try {
         await db.deleteFrom("floors").where("name", "=", FLOOR).execute();
         await page.goto("/galleries");
+        await page.waitForLoadState("networkidle");
         const newFloor = page.getByRole("form", { name: "New floor" }).first();
         await shown(newFloor);
         // A floor without a name is named as the problem, and nothing is added.
@@ -67,11 +68,13 @@ describe("running the galleries", () => {
         await shown(page.getByRole("heading", { level: 1, name: "Sketch Room" }), 30_000);
 
         await page.goto("/galleries");
+        await page.waitForLoadState("networkidle");
         const second = page.getByRole("form", { name: `New room on ${FLOOR}` });
         await second.getByLabel(`New room on ${FLOOR}`).fill("Annex");
         await second.getByRole("button", { name: "Add room and draw it" }).click();
         await shown(page.getByRole("heading", { level: 1, name: "Annex" }), 30_000);
         await page.goto("/galleries");
+        await page.waitForLoadState("networkidle");
         await shown(section.getByRole("link", { name: "Annex" }));
 
         // Rename the first room by keyboard.
@@ -112,6 +115,7 @@ describe("running the galleries", () => {
     const page = await signedInPage("curator");
     try {
       await page.goto(`/galleries/${room.id}`);
+      await page.waitForLoadState("networkidle");
       const versions = page.getByTestId("room-versions");
       await versions.locator("summary").click();
       await shown(versions.getByRole("cell", { name: "2 (current)" }));
@@ -136,6 +140,7 @@ describe("running the galleries", () => {
     const page = await signedInPage("curator");
     try {
       await page.goto("/galleries");
+      await page.waitForLoadState("networkidle");
       const card = page.locator("li", { has: page.getByRole("link", { name: "Exhibition Hall East", exact: true }) });
       await card.getByRole("button", { name: "Delete room" }).click();
       const ask = card.getByRole("alertdialog");
@@ -153,6 +158,7 @@ describe("running the galleries", () => {
     const page = await signedInPage("operations");
     try {
       await page.goto("/galleries");
+      await page.waitForLoadState("networkidle");
       await shown(page.getByRole("link", { name: "Exhibition Hall East", exact: true }));
       await expect(page.getByRole("button", { name: /^(Rename|Delete) / }).count()).resolves.toBe(0);
       await expect(page.getByRole("form", { name: "New floor" }).count()).resolves.toBe(0);

@@ -37,6 +37,7 @@ describe("People", () => {
       await signInThroughForm(page, "operations@example.org", DEMO_PASSWORD);
       await page.waitForURL((url) => url.pathname === "/");
       await page.goto("/people");
+      await page.waitForLoadState("networkidle");
       await page.getByRole("button", { name: "Add a guard" }).click();
       const form = page.getByRole("form", { name: "Add a guard" });
       await form.getByLabel("Name").fill("Wren Example");
@@ -58,7 +59,9 @@ describe("People", () => {
       await editForm.getByLabel("Contract hours a week").fill("20");
       await editForm.getByLabel(/On the staff/).uncheck();
       await editForm.getByRole("button", { name: "Save guard" }).click();
-      await shown(page.getByRole("row", { name: /Wren Example/ }).getByText("left"));
+      // Saved: the form closes and the row carries the "left" tag.
+      await editForm.waitFor({ state: "detached", timeout: 15_000 });
+      await shown(page.getByRole("row", { name: /Wren Example/ }).getByText("left", { exact: true }));
       const saved = await db.selectFrom("guards").select(["contract_hours", "active", "skills"]).where("email", "=", EMAIL).executeTakeFirstOrThrow();
       expect([Number(saved.contract_hours), saved.active, saved.skills]).toEqual([20, false, ["first-aid", "evening"]]);
     } finally {

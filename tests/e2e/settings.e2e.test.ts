@@ -41,8 +41,11 @@ describe("site settings", () => {
       await signInThroughForm(page, "admin@example.org", DEMO_PASSWORD);
       await page.waitForURL((url) => url.pathname === "/");
       await page.goto("/settings");
+      await page.waitForLoadState("networkidle");
       const form = page.getByRole("form", { name: `Settings of site ${siteId}` });
       await shown(form);
+      // The form fills its fields once the page is interactive: wait for that before typing.
+      await expect.poll(() => form.getByLabel("Currency").inputValue(), { timeout: 15_000 }).toBe(before.currency);
       await form.getByLabel("Currency").fill("EURO");
       await form.getByLabel("Extra hours a week a guard accepts").fill("6");
       await form.getByRole("button", { name: "Save settings" }).click();
@@ -56,8 +59,9 @@ describe("site settings", () => {
       expect(saved.currency).toBe("GBP");
       expect((saved.labour_rules as { acceptedExtraHours?: number }).acceptedExtraHours).toBe(6);
       await page.reload();
+      await page.waitForLoadState("networkidle");
       const again = page.getByRole("form", { name: `Settings of site ${siteId}` });
-      await expect(again.getByLabel("Currency").inputValue()).resolves.toBe("GBP");
+      await expect.poll(() => again.getByLabel("Currency").inputValue(), { timeout: 15_000 }).toBe("GBP");
       // Opening hours: Sunday closes at 19:00 now.
       await again.getByLabel("Sunday closes").fill("19:00");
       await again.getByRole("button", { name: "Save settings" }).click();

@@ -95,6 +95,13 @@ describe("reassign options", () => {
     }
   }, 60_000);
 
+  it("stores unfilled reasons and violations with rooms and post numbers, never an internal post id", async () => {
+    const roster = await db.selectFrom("rosters").select(["unfilled", "violations"]).where("id", "=", draftId).executeTakeFirstOrThrow();
+    expect(roster.unfilled.length).toBeGreaterThan(0);
+    expect(roster.unfilled.filter((u) => INTERNAL_POST_ID.test(u.reason)).map((u) => u.reason)).toEqual([]);
+    expect(roster.violations.filter((v) => INTERNAL_POST_ID.test(v.message))).toEqual([]);
+  });
+
   it("refuses guards (403) and a bad query (400) with a message", async () => {
     expect((await options(guard, new URLSearchParams(slot).toString())).status).toBe(403);
     const missing = await options(operations, `start=${encodeURIComponent(slot.start)}`);
