@@ -38,6 +38,15 @@ describe("People", () => {
       await page.waitForURL((url) => url.pathname === "/");
       await page.goto("/people");
       await page.waitForLoadState("networkidle");
+      // Hours this week come from the week's published roster, or the table says there is none.
+      await shown(page.getByRole("columnheader", { name: /Hours this week/ }));
+      const today = new Date().toLocaleDateString("en-CA", { timeZone: "Europe/Berlin" });
+      const d = new Date(`${today}T12:00:00Z`);
+      d.setUTCDate(d.getUTCDate() - ((d.getUTCDay() + 6) % 7));
+      const published = await db.selectFrom("rosters").select("id").where("starts_on", "=", d.toISOString().slice(0, 10)).where("status", "=", "published").executeTakeFirst();
+      const amira = page.getByRole("row", { name: /Amira Haddad/ });
+      if (published) await shown(amira.getByText(/^\d+(\.\d+)? h$/).first());
+      else await shown(amira.getByText("not published"));
       await page.getByRole("button", { name: "Add a guard" }).click();
       const form = page.getByRole("form", { name: "Add a guard" });
       await form.getByLabel("Name").fill("Wren Example");

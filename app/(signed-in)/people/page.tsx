@@ -1,7 +1,8 @@
 import type { Metadata } from "next";
 import { db } from "@/db";
 import { requirePageUser } from "@/lib/auth/session";
-import { mainSite } from "../_queries/site";
+import { mainSite, siteDay } from "../_queries/site";
+import { rosterView, weekOverview } from "@/lib/rosters/view";
 import { GuardsTable } from "./_components/guards-table";
 import { GuardEditor } from "./_components/guard-form";
 import { StaffImport } from "./_components/staff-import";
@@ -14,7 +15,14 @@ export default async function PeoplePage() {
   const user = await requirePageUser("people:view");
   const editable = can(user.role, "people:edit");
   const site = await mainSite();
-  const guards = site ? await guardsForPeople(db, site.id) : [];
+  const people = site ? await guardsForPeople(db, site.id) : [];
+  // Hours this week and overtime, from the week's published roster (the one guards go by).
+  const today = site ? siteDay(site).date : "";
+  const monday = today ? (() => { const d = new Date(`${today}T12:00:00Z`); d.setUTCDate(d.getUTCDate() - ((d.getUTCDay() + 6) % 7)); return d.toISOString().slice(0, 10); })() : "";
+  const week = site ? await weekOverview(db, site.id, monday) : null;
+  const roster = week?.status.current ? await rosterView(db, week.status.current.id) : null;
+  const hours = new Map((roster?.guardWeeks ?? []).map((g) => [g.guardId, { planned: g.plannedHours, overtime: g.overtimeHours }]));
+  const guards = people.map((g) => ({ ...g, weekHours: roster ? (hours.get(g.id)?.planned ?? 0) : null, weekOvertime: roster ? (hours.get(g.id)?.overtime ?? 0) : null }));
   return (
     <div className="space-y-4">
       <div>

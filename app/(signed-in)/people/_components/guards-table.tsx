@@ -21,6 +21,9 @@ export interface PeopleGuard {
   skills: string[];
   active: boolean;
   lastSignInAt: string | null;
+  /** Paid hours on this week's published roster (null: no published roster this week). */
+  weekHours: number | null;
+  weekOvertime: number | null;
 }
 
 
@@ -35,6 +38,8 @@ const baseColumns = [
   column.accessor("email", { header: "E-mail" }),
   column.accessor("contractHours", { header: "Contract hours" }),
   column.accessor("maxHours", { header: "Max hours" }),
+  column.accessor((row) => row.weekHours ?? -1, { id: "week", header: "Hours this week", cell: (info) => (info.row.original.weekHours === null ? "not published" : `${info.row.original.weekHours} h`) }),
+  column.accessor((row) => row.weekOvertime ?? -1, { id: "overtime", header: "Overtime", cell: (info) => (info.row.original.weekOvertime === null ? "–" : `${info.row.original.weekOvertime} h`) }),
   column.accessor((row) => row.acceptedExtraHours ?? -1, { id: "extra", header: "Accepted extra", cell: (info) => (info.row.original.acceptedExtraHours === null ? "site default" : `${info.row.original.acceptedExtraHours} h`) }),
   column.accessor((row) => row.skills.join(", "), {
     id: "skills",
