@@ -9,6 +9,7 @@
 import { readFileSync } from "node:fs";
 import { roomsFromGeoJson, type NamedRoom } from "../lib/geometry/geojson";
 import { PlanPool } from "../lib/guarding/plan-pool";
+import { planOverheadSeconds } from "../lib/guarding/fewest-preview";
 import { stoppedRoomReport, type RoomErrorEntry, type RoomOutcome, type RoomReport, type RoomReportOptions } from "../lib/guarding/room-report";
 
 interface CommandLine {
@@ -48,14 +49,9 @@ function readInput(file: string): string {
 
 type ErrorEntry = RoomErrorEntry | { room: string; code: string; message: string };
 
-/** Seconds a room may take beyond its fewest time limit before its thread is ended. */
-function overheadSeconds(): number {
-  const value = Number(process.env.SIGHTWARD_PLAN_OVERHEAD_SECONDS);
-  return process.env.SIGHTWARD_PLAN_OVERHEAD_SECONDS !== undefined && Number.isFinite(value) && value >= 0 ? value : 120;
-}
 
 async function planInPool(pool: PlanPool, named: NamedRoom, options: RoomReportOptions): Promise<RoomOutcome | { internal: string }> {
-  const seconds = (options.guaranteedOnly ? 0 : (options.timeLimitSeconds ?? 10)) + overheadSeconds();
+  const seconds = (options.guaranteedOnly ? 0 : (options.timeLimitSeconds ?? 10)) + planOverheadSeconds(120);
   const answer = await pool.run(
     { kind: "report", named, options },
     {

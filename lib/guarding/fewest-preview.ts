@@ -88,11 +88,12 @@ export function previewPostPlan(input: unknown): PreviewAnswer {
 
 /**
  * Seconds a pool job may run beyond the fewest plan's own time limit (validation, triangulation,
- * the guaranteed plan, sight and certificate); SIGHTWARD_PLAN_OVERHEAD_SECONDS, default 5.
+ * the guaranteed plan, sight and certificate); SIGHTWARD_PLAN_OVERHEAD_SECONDS, else `fallback`
+ * (5 in the server, where someone waits; the `posts` command allows more).
  */
-export function planOverheadSeconds(): number {
+export function planOverheadSeconds(fallback = 5): number {
   const value = Number(process.env.SIGHTWARD_PLAN_OVERHEAD_SECONDS);
-  return process.env.SIGHTWARD_PLAN_OVERHEAD_SECONDS !== undefined && Number.isFinite(value) && value >= 0 ? value : 5;
+  return process.env.SIGHTWARD_PLAN_OVERHEAD_SECONDS !== undefined && Number.isFinite(value) && value >= 0 ? value : fallback;
 }
 
 /**

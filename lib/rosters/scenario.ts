@@ -84,6 +84,18 @@ export function isMonday(date: string): boolean {
   return day.getUTCFullYear() === y && day.getUTCMonth() === m! - 1 && day.getUTCDate() === d && day.getUTCDay() === 1;
 }
 
+/** The calendar date `days` days after `date` (both YYYY-MM-DD; negative goes back). */
+export function addCalendarDays(date: string, days: number): string {
+  const day = new Date(`${date}T12:00:00Z`);
+  day.setUTCDate(day.getUTCDate() + days);
+  return day.toISOString().slice(0, 10);
+}
+
+/** The Monday that starts the roster week holding `date` (YYYY-MM-DD). */
+export function mondayOf(date: string): string {
+  return addCalendarDays(date, -((new Date(`${date}T12:00:00Z`).getUTCDay() + 6) % 7));
+}
+
 /**
  * Assembles and validates the scenario. Time off from day A to day B (inclusive) makes the guard
  * unavailable from A 00:00 to the midnight after B, in the site's zone; requests outside the

@@ -3,6 +3,7 @@ import { db } from "@/db";
 import { requirePageUser } from "@/lib/auth/session";
 import { mainSite, siteDay } from "../_queries/site";
 import { rosterView, weekOverview } from "@/lib/rosters/view";
+import { mondayOf } from "@/lib/rosters/scenario";
 import { GuardsTable } from "./_components/guards-table";
 import { GuardEditor } from "./_components/guard-form";
 import { StaffImport } from "./_components/staff-import";
@@ -18,8 +19,7 @@ export default async function PeoplePage() {
   const people = site ? await guardsForPeople(db, site.id) : [];
   // Hours this week and overtime, from the week's published roster (the one guards go by).
   const today = site ? siteDay(site).date : "";
-  const monday = today ? (() => { const d = new Date(`${today}T12:00:00Z`); d.setUTCDate(d.getUTCDate() - ((d.getUTCDay() + 6) % 7)); return d.toISOString().slice(0, 10); })() : "";
-  const week = site ? await weekOverview(db, site.id, monday) : null;
+  const week = site ? await weekOverview(db, site.id, mondayOf(today)) : null;
   const roster = week?.status.current ? await rosterView(db, week.status.current.id) : null;
   const hours = new Map((roster?.guardWeeks ?? []).map((g) => [g.guardId, { planned: g.plannedHours, overtime: g.overtimeHours }]));
   const guards = people.map((g) => ({ ...g, weekHours: roster ? (hours.get(g.id)?.planned ?? 0) : null, weekOvertime: roster ? (hours.get(g.id)?.overtime ?? 0) : null }));

@@ -7,6 +7,7 @@ import { useState } from "react";
 import { useForm } from "react-hook-form";
 import { apiFetch, ApiRequestError } from "@/lib/api/client";
 import { exhibitionUpdateSchema } from "@/lib/api/exhibitions";
+import { schemaResolver } from "@/lib/forms/schema-resolver";
 
 export interface SiteRoom {
   id: number;
@@ -59,17 +60,17 @@ export function ExhibitionForm({ siteId, siteRooms, initial, onDone }: { siteId:
   const [message, setMessage] = useState<string | null>(null);
   const form = useForm<FormValues>({
     defaultValues: toForm(initial, siteRooms),
-    resolver: async (values) => {
-      const parsed = exhibitionUpdateSchema.safeParse(fromForm(values, siteRooms));
-      if (parsed.success) return { values, errors: {} };
-      const errors: Record<string, { type: string; message: string }> = {};
-      for (const issue of parsed.error.issues) {
-        // A room's field error points at that room's row in the form.
-        const key = issue.path[0] === "rooms" && typeof issue.path[1] === "number" ? `rooms` : String(issue.path[0]);
-        errors[key] ??= { type: "invalid", message: issue.path[0] === "rooms" && typeof issue.path[1] === "number" ? `${siteRooms.find((r) => r.id === fromForm(values, siteRooms).rooms[issue.path[1] as number]?.roomId)?.name ?? "A room"}: ${issue.message}` : issue.message };
-      }
-      return { values: {}, errors };
-    },
+    resolver: schemaResolver(
+      exhibitionUpdateSchema,
+      (values: FormValues) => fromForm(values, siteRooms),
+      (issue, values) => {
+        // A room's field error is shown under the rooms, naming the room.
+        const index = issue.path[0] === "rooms" && typeof issue.path[1] === "number" ? issue.path[1] : null;
+        if (index === null) return { field: String(issue.path[0]), message: issue.message };
+        const roomId = fromForm(values, siteRooms).rooms[index]?.roomId;
+        return { field: "rooms", message: `${siteRooms.find((r) => r.id === roomId)?.name ?? "A room"}: ${issue.message}` };
+      },
+    ),
   });
   const errors = form.formState.errors as Record<string, { message?: string } | undefined>;
   const prefix = initial.id ? `exhibition-${initial.id}` : "new-exhibition";

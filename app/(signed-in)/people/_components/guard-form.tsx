@@ -7,6 +7,7 @@ import { useState } from "react";
 import { useForm } from "react-hook-form";
 import { apiFetch, ApiRequestError } from "@/lib/api/client";
 import { guardUpdateSchema, skillsFromText } from "@/lib/api/guards";
+import { schemaResolver } from "@/lib/forms/schema-resolver";
 import type { PeopleGuard } from "./guards-table";
 
 interface FormValues {
@@ -59,13 +60,7 @@ export function GuardForm({ siteId, guard, onDone }: { siteId: number; guard: Pe
   const [message, setMessage] = useState<string | null>(null);
   const form = useForm<FormValues>({
     defaultValues: toForm(guard),
-    resolver: async (values) => {
-      const parsed = guardUpdateSchema.safeParse(fromForm(values));
-      if (parsed.success) return { values, errors: {} };
-      const errors: Record<string, { type: string; message: string }> = {};
-      for (const issue of parsed.error.issues) errors[String(issue.path[0])] ??= { type: "invalid", message: issue.message };
-      return { values: {}, errors };
-    },
+    resolver: schemaResolver(guardUpdateSchema, fromForm),
   });
   const errors = form.formState.errors as Record<string, { message?: string } | undefined>;
   const prefix = guard ? `guard-${guard.id}` : "new-guard";

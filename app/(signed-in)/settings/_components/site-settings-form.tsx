@@ -7,6 +7,7 @@ import { useState } from "react";
 import { useFieldArray, useForm } from "react-hook-form";
 import { apiFetch, ApiRequestError } from "@/lib/api/client";
 import { siteSettingsSchema, type SiteSettingsInput } from "@/lib/api/site-settings";
+import { schemaResolver } from "@/lib/forms/schema-resolver";
 import { ENGINE_LABOUR_DEFAULTS, LABOUR_DEFAULT_KEYS } from "@/lib/scheduling/labour-defaults";
 
 const WEEKDAYS = [
@@ -94,19 +95,12 @@ export function SiteSettingsForm({ siteId, initial }: { siteId: number; initial:
   const form = useForm<FormValues>({
     defaultValues: toForm(initial),
     // The shared zod schema judges the values (the form holds text; fromForm makes the numbers).
-    resolver: async (values) => {
-      const parsed = siteSettingsSchema.safeParse(fromForm(values));
-      if (parsed.success) return { values, errors: {} };
-      const errors: Record<string, { type: string; message: string }> = {};
-      for (const issue of parsed.error.issues) {
-        // Opening and rules errors are shown beside their section, named by day or rule.
-        const [head, kind, key] = issue.path.map(String);
-        const where = head === "opening" ? (kind === "weekly" ? WEEKDAYS.find(([d]) => d === key)?.[1] ?? key : `the special day ${key ?? ""}`) : head === "rules" ? RULE_LABELS[kind as keyof typeof RULE_LABELS]?.label ?? kind : null;
-        const field = head === "opening" ? "opening" : head === "rules" ? "rules" : head!;
-        errors[field] ??= { type: "invalid", message: where ? `${where}: ${issue.message}` : issue.message };
-      }
-      return { values: {}, errors };
-    },
+    resolver: schemaResolver(siteSettingsSchema, fromForm, (issue) => {
+      // Opening and rules errors are shown beside their section, named by day or rule.
+      const [head, kind, key] = issue.path.map(String);
+      const where = head === "opening" ? (kind === "weekly" ? WEEKDAYS.find(([d]) => d === key)?.[1] ?? key : `the special day ${key ?? ""}`) : head === "rules" ? RULE_LABELS[kind as keyof typeof RULE_LABELS]?.label ?? kind : null;
+      return { field: head!, message: where ? `${where}: ${issue.message}` : issue.message };
+    }),
   });
   const dates = useFieldArray({ control: form.control, name: "dates" });
   const errors = form.formState.errors as Record<string, { message?: string } | undefined>;

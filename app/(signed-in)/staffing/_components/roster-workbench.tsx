@@ -7,16 +7,12 @@ import { useEffect, useState } from "react";
 import { TZDate } from "@date-fns/tz";
 import { format } from "date-fns";
 import { apiFetch } from "@/lib/api/client";
-import { isMonday } from "@/lib/rosters/scenario";
+import { addCalendarDays as shiftDate, isMonday } from "@/lib/rosters/scenario";
 import type { JobState, RosterView, WeekOverview } from "./roster-types";
 import { RosterGrid } from "./roster-grid";
 import { RosterSummary } from "./roster-summary";
 import { PublishReviewPanel } from "./publish-review";
 
-function shiftDate(date: string, days: number): string {
-  const [y, m, d] = date.split("-").map(Number);
-  return new Date(Date.UTC(y!, m! - 1, d! + days)).toISOString().slice(0, 10);
-}
 
 function useJob(jobId: number | null) {
   return useQuery({

@@ -6,22 +6,12 @@ import { db } from "@/db";
 import { requirePageUser } from "@/lib/auth/session";
 import { rosterView, weekOverview } from "@/lib/rosters/view";
 import { isCalendarDate } from "@/lib/format";
+import { addCalendarDays as shiftDate, mondayOf } from "@/lib/rosters/scenario";
 import { mainSite, siteDay } from "../../_queries/site";
 
 export const metadata: Metadata = { title: "Sign-in sheet" };
 export const dynamic = "force-dynamic";
 
-function mondayOf(date: string): string {
-  const day = new Date(`${date}T12:00:00Z`);
-  day.setUTCDate(day.getUTCDate() - ((day.getUTCDay() + 6) % 7));
-  return day.toISOString().slice(0, 10);
-}
-
-const shiftDate = (date: string, days: number) => {
-  const d = new Date(`${date}T12:00:00Z`);
-  d.setUTCDate(d.getUTCDate() + days);
-  return d.toISOString().slice(0, 10);
-};
 
 /**
  * The day's sign-in sheet for the front desk: every guard on the published roster that day with

@@ -5,14 +5,12 @@
 import { NextResponse, type NextRequest } from "next/server";
 import { z } from "zod";
 import { db } from "@/db";
-import { createInvitedUser, userByEmailAddress } from "@/db/queries/accounts";
-import { guardEmailTaken, insertGuard } from "@/db/queries/guards";
 import { siteExists } from "@/db/queries/galleries";
 import { ApiProblem } from "@/lib/api/problem";
 import { parseBody } from "@/lib/api/parse";
 import { requireRole } from "@/lib/api/require-role";
 import { route } from "@/lib/api/route";
-import { sendAccountLink } from "@/lib/auth/account-links";
+import { addGuardWithAccount, guardAddressProblem, inviteNewGuard } from "@/lib/people/add-guard";
 import { readStaffCsv, type StaffProblem } from "@/lib/people/staff-csv";
 
 const importSchema = z.object({
@@ -32,29 +30,24 @@ export const POST = route(async (request: NextRequest) => {
   if (problems.length > 0) refuse(problems);
   const taken: StaffProblem[] = [];
   for (const row of rows) {
-    if (await guardEmailTaken(db, body.siteId, row.email)) taken.push({ line: row.line, column: "email", message: `${row.email} is already on the staff` });
-    else {
-      const user = await userByEmailAddress(db, row.email);
-      if (user && user.role !== "guard") taken.push({ line: row.line, column: "email", message: `${row.email} belongs to a ${user.role} account` });
-    }
+    const problem = await guardAddressProblem(db, body.siteId, row.email);
+    if (problem) taken.push({ line: row.line, column: "email", message: problem });
   }
   if (taken.length > 0) refuse(taken);
   if (body.dryRun) return NextResponse.json({ preview: rows });
 
   const created = await db.transaction().execute(async (trx) => {
-    const out: { guard: { id: number; name: string; email: string }; user: { id: number; email: string; name: string }; invite: boolean }[] = [];
-    for (const row of rows) {
+    const out = [];
+    for (const { line, ...fields } of rows) {
       // Checked again inside the transaction: someone may have added the same person meanwhile.
-      if (await guardEmailTaken(trx, body.siteId, row.email)) refuse([{ line: row.line, column: "email", message: `${row.email} was added meanwhile` }]);
-      const existing = await userByEmailAddress(trx, row.email);
-      const user = existing ?? (await createInvitedUser(trx, { email: row.email, name: row.name, role: "guard" }));
-      const { line: _line, ...fields } = row;
-      out.push({ guard: await insertGuard(trx, { ...fields, siteId: body.siteId, userId: user.id }), user, invite: !existing });
+      const added = await addGuardWithAccount(trx, body.siteId, fields);
+      if (!added.ok) refuse([{ line, column: "email", message: added.message }]);
+      else out.push(added);
     }
     return out;
   });
   let unmailed = 0;
-  for (const c of created) if (c.invite && !(await sendAccountLink(db, c.user, "invite", manager.id)).mailed) unmailed++;
+  for (const added of created) if ((await inviteNewGuard(db, added, manager.id))?.mailed === false) unmailed++;
   return NextResponse.json(
     {
       imported: created.map((c) => c.guard),
