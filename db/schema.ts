@@ -346,6 +346,39 @@ export interface Database {
   room_versions: RoomVersionsTable;
   sign_in_throttle: SignInThrottleTable;
   account_links: AccountLinksTable;
+  outbox: OutboxTable;
+}
+
+export type OutboxKind = "roster" | "invitation" | "reset" | "notice";
+export type OutboxStatus = "queued" | "sent" | "failed";
+
+/** An attachment as the outbox keeps it: its text content (calendar files are text). */
+export interface OutboxAttachment {
+  filename: string;
+  contentType: string;
+  content: string;
+}
+
+/** One message the product sent or tried to send (0090). */
+export interface OutboxTable {
+  id: GeneratedAlways<number>;
+  kind: OutboxKind;
+  sender: string;
+  recipient: string;
+  subject: string;
+  /** The text part; set-password links are stored masked. */
+  body: string;
+  attachments: ColumnType<OutboxAttachment[], string | undefined, string>;
+  status: ColumnType<OutboxStatus, OutboxStatus | undefined, OutboxStatus>;
+  attempts: ColumnType<number, number | undefined, number>;
+  last_error: string | null;
+  message_id: string | null;
+  user_id: number | null;
+  guard_id: number | null;
+  roster_id: number | null;
+  created_at: ColumnType<Date, Date | string | undefined, Date | string>;
+  updated_at: ColumnType<Date, Date | string | undefined, Date | string>;
+  sent_at: ColumnType<Date | null, Date | string | null | undefined, Date | string | null>;
 }
 
 /** Failed sign-ins per "account:<e-mail>" and "address:<client>" (migration 0060). */

@@ -22,6 +22,11 @@ export async function userByEmailAddress(handle: Handle, email: string) {
   return handle.selectFrom("users").select(["id", "email", "name", "role"]).where("email", "=", email).executeTakeFirst();
 }
 
+/** What sending a set-password link needs to know of an account. */
+export async function accountForLink(handle: Handle, id: number) {
+  return handle.selectFrom("users").select(["id", "email", "name", "password_hash", "disabled_at"]).where("id", "=", id).executeTakeFirst();
+}
+
 export async function createInvitedUser(handle: Handle, user: { email: string; name: string; role: Role }) {
   return handle
     .insertInto("users")

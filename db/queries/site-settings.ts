@@ -9,6 +9,8 @@ import { ENGINE_LABOUR_DEFAULTS, LABOUR_DEFAULT_KEYS, type LabourDefaults } from
 type Handle = Kysely<Database> | Transaction<Database>;
 
 export interface SiteSettings {
+  name?: string;
+  mailSender?: string | null;
   timeZone: string;
   locale: string;
   currency: string;
@@ -26,12 +28,13 @@ function labourDefaults(rules: SiteLabourRules | null): LabourDefaults {
 }
 
 export async function siteSettings(handle: Handle, siteId: number): Promise<(SiteSettings & { id: number; name: string }) | null> {
-  const row = await handle.selectFrom("sites").select(["id", "name", "time_zone", "locale", "currency", "hourly_rate", "labour_rules", "opening_hours"]).where("id", "=", siteId).executeTakeFirst();
+  const row = await handle.selectFrom("sites").select(["id", "name", "time_zone", "locale", "currency", "hourly_rate", "labour_rules", "opening_hours", "mail_sender"]).where("id", "=", siteId).executeTakeFirst();
   if (!row) return null;
   const extra = (row.labour_rules as SiteLabourRules | null)?.acceptedExtraHours;
   return {
     id: row.id,
     name: row.name,
+    mailSender: row.mail_sender,
     timeZone: row.time_zone,
     locale: row.locale,
     currency: row.currency,
@@ -65,6 +68,8 @@ export async function saveSiteSettings(handle: Kysely<Database>, siteId: number,
     if (!current) return null;
     const now = await siteSettings(trx, siteId);
     const same = (a: SiteSettings, b: SiteSettings) =>
+      (b.name === undefined || a.name === b.name) &&
+      (b.mailSender === undefined || (a.mailSender ?? null) === b.mailSender) &&
       a.timeZone === b.timeZone &&
       a.locale === b.locale &&
       a.currency === b.currency &&
@@ -76,6 +81,8 @@ export async function saveSiteSettings(handle: Kysely<Database>, siteId: number,
     await trx
       .updateTable("sites")
       .set({
+        ...(next.name !== undefined ? { name: next.name } : {}),
+        ...(next.mailSender !== undefined ? { mail_sender: next.mailSender } : {}),
         time_zone: next.timeZone,
         locale: next.locale,
         currency: next.currency,

@@ -26,7 +26,24 @@ export const labourDefaultsSchema = z.object({
   breakMinutes: z.number().min(0, "a break cannot be negative").max(120, "at most 120 minutes of break"),
 }).refine((r) => r.minShiftHours <= r.maxShiftHours, { message: "the shortest shift cannot be longer than the longest", path: ["minShiftHours"] });
 
+// "security@example.org" or "Aldmoor Security <security@example.org>" (RFC 5322 name-addr, kept simple).
+const ADDRESS = /^[^\s@<>()",;:]+@[A-Za-z0-9-]+(\.[A-Za-z0-9-]+)+$/;
+export function isMailSender(value: string): boolean {
+  const named = /^([^<>"\r\n]{1,100}?)\s*<([^<>]+)>$/.exec(value);
+  return named ? ADDRESS.test(named[2]!.trim()) : ADDRESS.test(value);
+}
+
 export const siteSettingsSchema = z.object({
+  /** The museum's (site's) name as pages and mails show it; absent = unchanged. */
+  name: z.string().trim().min(1, "give the site a name").max(120, "keep the name under 120 characters").optional(),
+  /** From address of the site's mail; null = the app's default sender; absent = unchanged. */
+  mailSender: z
+    .string()
+    .trim()
+    .max(200, "keep the sender under 200 characters")
+    .refine(isMailSender, 'use an address such as security@example.org, or a name and address: Aldmoor Security <security@example.org>')
+    .nullable()
+    .optional(),
   timeZone: z.string().trim().refine(isTimeZone, "use an IANA time zone such as Europe/Berlin"),
   locale: z.string().trim().refine(isLocale, "use a language tag such as en-GB or de-DE"),
   currency: z.string().trim().toUpperCase().refine(isCurrency, "use an ISO 4217 currency code such as EUR or GBP"),

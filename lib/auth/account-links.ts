@@ -6,7 +6,7 @@ import { createHash, randomBytes } from "node:crypto";
 import type { Kysely } from "kysely";
 import type { Database } from "@/db/schema";
 import { insertAccountLink } from "@/db/queries/accounts";
-import { sendMail } from "@/lib/mail";
+import { MailNotSent, sendAgainOnRow, sendRecorded } from "@/lib/mail/outbox";
 
 export const LINK_HOURS = { invite: 7 * 24, reset: 24 } as const;
 
@@ -31,6 +31,8 @@ export async function sendAccountLink(
   user: { id: number; email: string; name: string },
   purpose: "invite" | "reset",
   createdBy: number | null,
+  /** A resend from the outbox: the new link's mail replaces that row's, so the record stays one. */
+  outboxId?: number,
 ): Promise<SentLink> {
   const token = randomBytes(32).toString("base64url");
   const expiresAt = new Date(Date.now() + LINK_HOURS[purpose] * 3_600_000);
@@ -43,9 +45,11 @@ export async function sendAccountLink(
       ? `Hello ${user.name},\n\nan account on Sightward was made for you (${user.email}). Choose your password here:\n\n${link}\n\nThe link works once, until ${until} UTC. If you did not expect this, ignore this mail.\n`
       : `Hello ${user.name},\n\nsomeone (an administrator, or you) asked to set a new password for ${user.email}. Choose it here:\n\n${link}\n\nThe link works once, until ${until} UTC; your old password works until then. If you did not ask for this, ignore this mail.\n`;
   try {
-    await sendMail({ to: user.email, subject, text });
+    if (outboxId !== undefined) await sendAgainOnRow(db, outboxId, { to: user.email, subject, text });
+    else await sendRecorded(db, { kind: purpose === "invite" ? "invitation" : "reset", to: user.email, subject, text, userId: user.id });
     return { expiresAt, mailed: true };
   } catch (error) {
-    return { expiresAt, mailed: false, mailError: error instanceof Error ? error.message : String(error) };
+    const reason = error instanceof MailNotSent ? error.message : error instanceof Error ? error.message : String(error);
+    return { expiresAt, mailed: false, mailError: reason };
   }
 }

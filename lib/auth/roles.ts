@@ -20,6 +20,7 @@ export const PERMISSIONS = [
   "users:manage",
   "settings:manage",
   "mail:read",
+  "mail:resend",
   "time-off:decide",
 ] as const;
 export type Permission = (typeof PERMISSIONS)[number];
@@ -41,7 +42,7 @@ const GRANTS: Record<Role, readonly Permission[]> = {
   ],
   guard: ["shifts:own"],
   // Admins also run the building's sites, floors and rooms alongside curators.
-  admin: ["users:manage", "settings:manage", "mail:read", "galleries:view", "rooms:edit"],
+  admin: ["users:manage", "settings:manage", "mail:read", "mail:resend", "galleries:view", "rooms:edit"],
 };
 
 export function isRole(value: unknown): value is Role {

@@ -70,4 +70,5 @@ export const ROUTE_MATRIX: Readonly<Record<string, RouteAccess>> = {
   "POST /api/users/[id]/reset": "users:manage",
   "GET /api/mail": "mail:read",
   "GET /api/mail/[id]": "mail:read",
+  "POST /api/mail/[id]/resend": "mail:resend",
 };

@@ -2,6 +2,9 @@
 // message in MAIL_DIR. Used by the admin mail page and by tests.
 import { promises as fs } from "node:fs";
 import path from "node:path";
+import { maskSecrets } from "./mask";
+
+export { maskSecrets };
 
 export interface CaughtAttachment {
   filename: string | null;
@@ -93,17 +96,6 @@ export async function listCaughtMail(options: { to?: string; limit?: number } = 
 export async function readCaughtMail(id: string): Promise<CaughtMail | null> {
   if (!isCaughtMailId(id)) return null;
   return readMessageFile(path.join(/*turbopackIgnore: true*/ mailDir(), `${id}.json`));
-}
-
-/**
- * What an administrator may read of a message: the secret parts of links (set-password tokens,
- * personal calendar feed tokens) are masked, so reading the mail page never hands over someone
- * else's account or calendar.
- */
-export function maskSecrets(text: string): string {
-  return text
-    .replace(/(\/set-password\?token=)[A-Za-z0-9_-]+/g, "$1••••••")
-    .replace(/(\/api\/calendar\/)[A-Za-z0-9_-]{8,}/g, "$1••••••");
 }
 
 /** A caught message as the admin's mail page shows it: text, HTML and attachments' names with secrets masked. */

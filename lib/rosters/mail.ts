@@ -10,7 +10,8 @@ import type { Database } from "@/db/schema";
 import { rosterById, shiftsOfRoster, siteById } from "@/db/queries/rosters";
 import { calendarText } from "@/lib/calendar/ics";
 import { RetryLater } from "@/lib/jobs/retry";
-import { sendMail, smtpSettings } from "@/lib/mail/transport";
+import { smtpSettings } from "@/lib/mail/transport";
+import { MailNotSent, sendRecorded } from "@/lib/mail/outbox";
 import { roomsOfScenario, shiftEvents, shiftPlan, shiftWhen, type ShiftForPeople } from "./shift-events";
 
 export interface MailProgress {
@@ -88,13 +89,18 @@ export async function mailPublishedRoster(
       method: "PUBLISH",
     });
     try {
-      await sendMail({
+      await sendRecorded(db, {
+        kind: "roster",
         to: guard.email,
         subject: `${before ? "Changed shifts" : "Your shifts"}, week of ${week} (version ${roster.version})`,
         text,
         attachments: own.length > 0 ? [{ filename: "shifts.ics", content: ics, contentType: "text/calendar; charset=utf-8; method=PUBLISH" }] : [],
+        siteId: roster.site_id,
+        guardId: guard.id,
+        rosterId: roster.id,
       });
-    } catch (error) {
+    } catch (thrown) {
+      const error = thrown instanceof MailNotSent ? thrown.cause : thrown;
       if (!isPassingMailFailure(error)) throw error;
       const { host, port } = smtpSettings();
       throw new RetryLater(

@@ -184,7 +184,8 @@ describe("GET /api/mail (mail:read)", () => {
     expect((await caller().request("/api/mail")).status).toBe(401);
     for (const role of ["operations", "curator", "guard"] as const) {
       expect((await who(role).request("/api/mail")).status, role).toBe(403);
-      expect((await who(role).request("/api/mail/some-id")).status, role).toBe(403);
+      expect((await who(role).request("/api/mail/1")).status, role).toBe(403);
+      expect((await who(role).request("/api/mail/1/resend", { method: "POST", json: {} })).status, role).toBe(403);
     }
   });
 
@@ -197,7 +198,9 @@ describe("GET /api/mail (mail:read)", () => {
     const bad = await who("admin").request("/api/mail?limit=0");
     expect(bad.status).toBe(400);
     expect((await errorOf(bad)).field).toBe("limit");
-    const missing = await who("admin").request("/api/mail/no-such-message");
+    const missing = await who("admin").request("/api/mail/2147483000");
     expect(missing.status).toBe(404);
+    const malformed = await who("admin").request("/api/mail/no-such-message");
+    expect(malformed.status).toBe(400);
   });
 });

@@ -93,6 +93,11 @@ describe("mail failures that pass", () => {
     // Not before its time: the queue has nothing to claim for this kind yet.
     expect(await claimNextJob(db, [ROSTER_MAIL_JOB])).toBeNull();
     expect(await listCaughtMail({ to: EMAILS[0] })).toEqual([]);
+    // The outbox holds the failed attempt with the server's reason.
+    const failed = await db.selectFrom("outbox").select(["status", "attempts", "last_error"]).where("roster_id", "=", rosterId).where("created_at", ">=", new Date(since)).execute();
+    expect(failed).toHaveLength(1);
+    expect(failed[0]).toMatchObject({ status: "failed", attempts: 1 });
+    expect(failed[0]!.last_error).toMatch(/ECONNREFUSED|connect/i);
 
     // The pause is over (moved, not waited for) and the mail server answers again.
     await db.updateTable("jobs").set({ run_after: sql<Date>`now()` }).where("id", "=", job.id).execute();
@@ -102,6 +107,11 @@ describe("mail failures that pass", () => {
       const caught = (await listCaughtMail({ to: email })).filter((m) => m.receivedAt >= since);
       expect(caught, email).toHaveLength(1);
     }
+    // One row per guard: the retried one sent on its second attempt, not recorded twice.
+    const rows = await db.selectFrom("outbox").select(["recipient", "status", "attempts"]).where("roster_id", "=", rosterId).where("created_at", ">=", new Date(since)).orderBy("id").execute();
+    expect(rows.map((r) => r.recipient).sort()).toEqual([...EMAILS].sort());
+    expect(rows.every((r) => r.status === "sent")).toBe(true);
+    expect(rows.map((r) => r.attempts).sort()).toEqual([1, 2]);
   });
 
   it("gives up with the reason after the last attempt, and fails at once on a permanent error", async () => {

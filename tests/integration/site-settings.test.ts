@@ -16,6 +16,8 @@ import { GET, PUT } from "@/app/api/sites/[siteId]/settings/route";
 import { siteSettings, type SiteSettings } from "@/db/queries/site-settings";
 import { createSite } from "@/db/queries/galleries";
 import { acceptedExtraHours } from "@/lib/rosters/scenario";
+import { sendRecorded, senderFor } from "@/lib/mail/outbox";
+import { listCaughtMail, readCaughtMail } from "@/lib/mail";
 import { requireDatabaseUrl } from "./support/database";
 import { signedRequest, userByEmail, type SignedUser } from "./support/signed-request";
 
@@ -109,5 +111,44 @@ describe("site settings", () => {
     const site = await db.selectFrom("sites").select(["labour_rules"]).where("id", "=", siteId).executeTakeFirstOrThrow();
     expect(acceptedExtraHours({ accepted_extra_hours: null }, site)).toBe(3);
     expect(acceptedExtraHours({ accepted_extra_hours: 5 }, site)).toBe(5);
+  });
+});
+
+describe("the site's name and mail sender", () => {
+  it("refuses a malformed sender naming the field, saves a good one, and the site's mail goes from it", async () => {
+    const shown = (await siteSettings(db, siteId))!;
+    const previous = { timeZone: shown.timeZone, locale: shown.locale, currency: shown.currency, hourlyRate: shown.hourlyRate, acceptedExtraHours: shown.acceptedExtraHours, name: shown.name, mailSender: shown.mailSender };
+    expect(previous.mailSender).toBeNull();
+    for (const bad of ["security", "Security <security>", "a@b", "Two <a@example.org> <b@example.org>"]) {
+      const answer = await put(admin, { previous, settings: { ...previous, mailSender: bad } });
+      expect(answer.status, bad).toBe(422);
+      expect(answer.body.error.field).toBe("settings.mailSender");
+    }
+    const blank = await put(admin, { previous, settings: { ...previous, name: "  " } });
+    expect(blank.status).toBe(422);
+    expect(blank.body.error.field).toBe("settings.name");
+    expect(await siteSettings(db, siteId)).toMatchObject({ name: "Settings test site", mailSender: null });
+
+    const sender = "Settings Test Security <security@example.org>";
+    const saved = await put(admin, { previous, settings: { ...previous, name: "Settings test site", mailSender: sender } });
+    expect(saved.status).toBe(200);
+    expect(saved.body.settings).toMatchObject({ mailSender: sender });
+    expect(await senderFor(db, siteId)).toBe(sender);
+    // The main site keeps its own (default) sender.
+    expect(await senderFor(db)).not.toBe(sender);
+
+    const to = `sender.${process.pid}@example.org`;
+    const { outboxId } = await sendRecorded(db, { kind: "notice", to, subject: "From the site's sender", text: "A note.", siteId });
+    try {
+      expect((await db.selectFrom("outbox").select("sender").where("id", "=", outboxId).executeTakeFirstOrThrow()).sender).toBe(sender);
+      let caught = await listCaughtMail({ to });
+      for (let i = 0; caught.length === 0 && i < 50; i++) {
+        await new Promise((resolve) => setTimeout(resolve, 100));
+        caught = await listCaughtMail({ to });
+      }
+      expect((await readCaughtMail(caught[0]!.id))!.from).toContain("security@example.org");
+    } finally {
+      await db.deleteFrom("outbox").where("id", "=", outboxId).execute();
+    }
   });
 });

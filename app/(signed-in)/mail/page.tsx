@@ -1,53 +1,46 @@
 import type { Metadata } from "next";
-import Link from "next/link";
-import { listCaughtMail } from "@/lib/mail/caught";
+import { db } from "@/db";
+import { listOutbox } from "@/db/queries/outbox";
 import { requirePageUser } from "@/lib/auth/session";
-import { siteTime } from "@/components/when";
-import { mainSite } from "../_queries/site";
+import { OutboxTable } from "./_components/outbox-table";
 
 export const metadata: Metadata = { title: "Mail" };
 export const dynamic = "force-dynamic";
 
 export default async function MailPage() {
   await requirePageUser("mail:read");
-  const [messages, site] = await Promise.all([listCaughtMail({ limit: 200 }), mainSite()]);
-  const timeZone = site?.time_zone ?? "UTC";
+  const rows = await listOutbox(db, { limit: 500 });
+  const failed = rows.filter((row) => row.status === "failed").length;
   return (
     <div className="space-y-4">
       <div>
-        <h1>Caught mail</h1>
+        <h1>Mail</h1>
         <p className="text-stone-700">
-          Every message Sightward sends goes to the local mail fake and stays on this machine. Newest first.
+          Everything Sightward sent: roster mails, invitations and password resets, with whether each went out. Links that would open
+          someone&apos;s account or calendar are masked here. A failed message can be sent again; a set-password mail then carries a new link
+          and the old one stops working.
         </p>
-      </div>
-      <div className="card overflow-x-auto">
-        {messages.length === 0 ? (
-          <p>No messages caught yet.</p>
-        ) : (
-          <table className="data-table">
-            <caption className="sr-only">Caught messages</caption>
-            <thead>
-              <tr>
-                <th scope="col">Received</th>
-                <th scope="col">Subject</th>
-                <th scope="col">To</th>
-                <th scope="col">Attachments</th>
-              </tr>
-            </thead>
-            <tbody>
-              {messages.map((message) => (
-                <tr key={message.id}>
-                  <td className="whitespace-nowrap">{siteTime(message.receivedAt, timeZone)}</td>
-                  <td>
-                    <Link href={`/mail/${message.id}`}>{message.subject || "(no subject)"}</Link>
-                  </td>
-                  <td>{message.to.join(", ")}</td>
-                  <td>{message.attachmentCount}</td>
-                </tr>
-              ))}
-            </tbody>
-          </table>
+        {failed > 0 && (
+          <p role="status" className="mt-2 font-semibold text-alert-700">
+            {failed === 1 ? "1 message did not go out." : `${failed} messages did not go out.`} Check the reason, then resend.
+          </p>
         )}
+      </div>
+      <div className="card">
+        <OutboxTable
+          rows={rows.map((row) => ({
+            id: row.id,
+            kind: row.kind,
+            recipient: row.recipient,
+            subject: row.subject,
+            status: row.status,
+            attempts: row.attempts,
+            last_error: row.last_error,
+            created_at: row.created_at.toISOString(),
+            sent_at: row.sent_at?.toISOString() ?? null,
+            attachment_count: Number(row.attachment_count),
+          }))}
+        />
       </div>
     </div>
   );

@@ -31,7 +31,7 @@ export const POST = route(async (request: NextRequest) => {
     {
       user,
       invitation: { expiresAt: sent.expiresAt.toISOString(), mailed: sent.mailed },
-      ...(sent.mailed ? {} : { warning: `The account was made but the mail did not go out (${sent.mailError}); use "Send a new link" once the mail server answers.` }),
+      ...(sent.mailed ? {} : { warning: `The account was made but the mail did not go out (${sent.mailError}); it waits in the outbox as failed: resend it from Mail once the mail server answers.` }),
     },
     { status: 201 },
   );

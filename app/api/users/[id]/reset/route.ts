@@ -2,7 +2,7 @@
 // (24 hours; for an account still waiting for its first password, a new 7-day invitation).
 import { NextResponse, type NextRequest } from "next/server";
 import { db } from "@/db";
-import { NO_PASSWORD } from "@/db/queries/accounts";
+import { NO_PASSWORD, accountForLink } from "@/db/queries/accounts";
 import { ApiProblem } from "@/lib/api/problem";
 import { parseParams } from "@/lib/api/parse";
 import { requireRole } from "@/lib/api/require-role";
@@ -15,7 +15,7 @@ type Context = { params: Promise<{ id: string }> };
 export const POST = route<Context>(async (request: NextRequest, context) => {
   const admin = await requireRole(request, "users:manage");
   const { id } = parseParams(await context.params, userIdSchema);
-  const user = await db.selectFrom("users").select(["id", "email", "name", "password_hash", "disabled_at"]).where("id", "=", id).executeTakeFirst();
+  const user = await accountForLink(db, id);
   if (!user) throw new ApiProblem(404, "not-found", `No user with id ${id}.`);
   if (user.disabled_at) throw new ApiProblem(409, "account-disabled", `${user.name}'s account is disabled; enable it before sending a link.`);
   const purpose = user.password_hash === NO_PASSWORD ? "invite" : "reset";
