@@ -347,6 +347,24 @@ export interface Database {
   sign_in_throttle: SignInThrottleTable;
   account_links: AccountLinksTable;
   outbox: OutboxTable;
+  audit_events: AuditEventsTable;
+}
+
+/** One change someone made (0100); append-only: the database refuses UPDATE and DELETE. */
+export interface AuditEventsTable {
+  id: GeneratedAlways<string>;
+  at: ColumnType<Date, Date | string | undefined, never>;
+  actor_id: number | null;
+  actor_name: string;
+  actor_role: string;
+  /** "<area>.<verb>", e.g. "room.save-walls". */
+  action: string;
+  subject_type: string;
+  subject_id: number | null;
+  subject_label: ColumnType<string, string | undefined, never>;
+  site_id: number | null;
+  summary: string;
+  changes: ColumnType<Record<string, unknown>, string | undefined, never>;
 }
 
 export type OutboxKind = "roster" | "invitation" | "reset" | "notice";

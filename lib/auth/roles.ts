@@ -21,6 +21,7 @@ export const PERMISSIONS = [
   "settings:manage",
   "mail:read",
   "mail:resend",
+  "audit:read",
   "time-off:decide",
 ] as const;
 export type Permission = (typeof PERMISSIONS)[number];
@@ -42,7 +43,7 @@ const GRANTS: Record<Role, readonly Permission[]> = {
   ],
   guard: ["shifts:own"],
   // Admins also run the building's sites, floors and rooms alongside curators.
-  admin: ["users:manage", "settings:manage", "mail:read", "mail:resend", "galleries:view", "rooms:edit"],
+  admin: ["users:manage", "settings:manage", "mail:read", "mail:resend", "audit:read", "galleries:view", "rooms:edit"],
 };
 
 export function isRole(value: unknown): value is Role {
@@ -76,6 +77,7 @@ const NAV: readonly NavEntry[] = [
   { href: "/settings", label: "Settings", permission: "settings:manage" },
   { href: "/users", label: "Users", permission: "users:manage" },
   { href: "/mail", label: "Mail", permission: "mail:read" },
+  { href: "/audit", label: "Audit trail", permission: "audit:read" },
 ];
 
 export function navigationFor(role: Role): NavEntry[] {

@@ -71,4 +71,5 @@ export const ROUTE_MATRIX: Readonly<Record<string, RouteAccess>> = {
   "GET /api/mail": "mail:read",
   "GET /api/mail/[id]": "mail:read",
   "POST /api/mail/[id]/resend": "mail:resend",
+  "GET /api/audit": "audit:read",
 };

@@ -64,7 +64,7 @@ describe("roles: who may do what", () => {
     expect(labels("curator")).toEqual(["Galleries"]);
     expect(labels("operations")).toEqual(["Galleries", "Exhibitions", "Staffing", "People"]);
     expect(labels("guard")).toEqual(["My shifts"]);
-    expect(labels("admin")).toEqual(["Galleries", "Settings", "Users", "Mail"]);
+    expect(labels("admin")).toEqual(["Galleries", "Settings", "Users", "Mail", "Audit trail"]);
   });
 
   // README.md's table: curators edit rooms, operations approve plans and publish rosters, guards see their own shifts.

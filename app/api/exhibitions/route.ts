@@ -10,16 +10,19 @@ import { ApiProblem } from "@/lib/api/problem";
 import { parseBody } from "@/lib/api/parse";
 import { requireRole } from "@/lib/api/require-role";
 import { route } from "@/lib/api/route";
+import { recordAudit } from "@/lib/audit/record";
 
 export const POST = route(async (request: NextRequest) => {
-  await requireRole(request, "exhibitions:edit");
+  const user = await requireRole(request, "exhibitions:edit");
   const body = await parseBody(request, exhibitionCreateSchema);
   const exhibition = await db.transaction().execute(async (trx) => {
     if (!(await siteExists(trx, body.siteId))) throw new ApiProblem(422, "invalid-input", `There is no site ${body.siteId}; reload the page.`, { field: "siteId" });
     const foreign = await roomsNotOnSite(trx, body.siteId, body.rooms.map((r) => r.roomId));
     if (foreign.length > 0) throw new ApiProblem(422, "invalid-input", `Room ${foreign[0]} is not a room of this site; choose the rooms from the list.`, { field: "rooms" });
     if (await exhibitionNameTaken(trx, body.siteId, body.name)) throw new ApiProblem(409, "name-taken", `The site already has an exhibition called ${body.name}; choose another name.`, { field: "name" });
-    return createExhibition(trx, body);
+    const created = await createExhibition(trx, body);
+    await recordAudit(trx, user, { action: "exhibition.create", subject: { type: "exhibition", id: created.id, label: body.name }, siteId: body.siteId, summary: `created the exhibition ${body.name}`, changes: { ...body } });
+    return created;
   });
   return NextResponse.json({ exhibition }, { status: 201 });
 });

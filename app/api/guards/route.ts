@@ -10,6 +10,7 @@ import { parseBody } from "@/lib/api/parse";
 import { requireRole } from "@/lib/api/require-role";
 import { route } from "@/lib/api/route";
 import { addGuardWithAccount, inviteNewGuard } from "@/lib/people/add-guard";
+import { recordAudit } from "@/lib/audit/record";
 
 export const POST = route(async (request: NextRequest) => {
   const manager = await requireRole(request, "people:edit");
@@ -20,6 +21,7 @@ export const POST = route(async (request: NextRequest) => {
     if (!result.ok) throw new ApiProblem(409, "email-taken", `${result.message}; edit that guard or use another address.`, { field: "email" });
     return result;
   });
+  await recordAudit(db, manager, { action: "guard.add", subject: { type: "guard", id: added.guard.id, label: fields.name }, siteId, summary: `added the guard ${fields.name}`, changes: { ...fields } });
   const sent = await inviteNewGuard(db, added, manager.id);
   return NextResponse.json(
     {

@@ -10,6 +10,7 @@ import { requireRole } from "@/lib/api/require-role";
 import { route } from "@/lib/api/route";
 import { normaliseRoom, validateRoom } from "@/lib/geometry/room";
 import type { Ring } from "@/lib/geometry/types";
+import { recordAudit } from "@/lib/audit/record";
 
 export const POST = route(async (request: NextRequest) => {
   const user = await requireRole(request, "rooms:edit");
@@ -30,7 +31,9 @@ export const POST = route(async (request: NextRequest) => {
     if (await roomNameTaken(trx, body.floorId, body.name)) {
       throw new ApiProblem(409, "name-taken", `The floor already has a room called ${body.name}; choose another name.`, { field: "name" });
     }
-    return createRoom(trx, { floor_id: body.floorId, name: body.name, ...walls }, user.id);
+    const created = await createRoom(trx, { floor_id: body.floorId, name: body.name, ...walls }, user.id);
+    await recordAudit(trx, user, { action: "room.create", subject: { type: "room", id: created.id, label: body.name }, summary: `added the room ${body.name}`, changes: { floorId: body.floorId, corners: walls.outline.length, obstacles: walls.obstacles.length } });
+    return created;
   });
   return NextResponse.json({ room }, { status: 201 });
 });

@@ -7,6 +7,7 @@ import { siteCreateSchema } from "@/lib/api/galleries";
 import { parseBody } from "@/lib/api/parse";
 import { requireRole } from "@/lib/api/require-role";
 import { route } from "@/lib/api/route";
+import { recordAudit } from "@/lib/audit/record";
 
 export const dynamic = "force-dynamic";
 
@@ -16,8 +17,9 @@ export const GET = route(async (request: NextRequest) => {
 });
 
 export const POST = route(async (request: NextRequest) => {
-  await requireRole(request, "rooms:edit");
+  const user = await requireRole(request, "rooms:edit");
   const body = await parseBody(request, siteCreateSchema);
   const site = await createSite(db, { name: body.name, time_zone: body.timeZone, currency: body.currency, hourly_rate: body.hourlyRate });
+  await recordAudit(db, user, { action: "site.create", subject: { type: "site", id: site.id, label: body.name }, siteId: site.id, summary: `created the site ${body.name}`, changes: { name: body.name, timeZone: body.timeZone, currency: body.currency, hourlyRate: body.hourlyRate } });
   return NextResponse.json({ site }, { status: 201 });
 });

@@ -8,6 +8,7 @@ import { ApiProblem } from "@/lib/api/problem";
 import { inviteSchema } from "@/lib/api/accounts";
 import { createInvitedUser, listUsers, userByEmailAddress } from "@/db/queries/accounts";
 import { sendAccountLink } from "@/lib/auth/account-links";
+import { recordAudit } from "@/lib/audit/record";
 
 /** GET /api/users: every account with its role, whether it is disabled or still invited, and its last sign-in (admins only). */
 export const GET = route(async (request: NextRequest) => {
@@ -26,6 +27,7 @@ export const POST = route(async (request: NextRequest) => {
     throw new ApiProblem(409, "email-taken", `There is already an account for ${body.email}; send that person a reset link instead.`, { field: "email" });
   }
   const user = await createInvitedUser(db, body);
+  await recordAudit(db, admin, { action: "user.invite", subject: { type: "user", id: user.id, label: body.email }, summary: `invited ${body.name} (${body.email}) as ${body.role}`, changes: { ...body } });
   const sent = await sendAccountLink(db, user, "invite", admin.id);
   return NextResponse.json(
     {

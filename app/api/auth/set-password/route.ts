@@ -10,6 +10,7 @@ import { parseBody } from "@/lib/api/parse";
 import { route } from "@/lib/api/route";
 import { tokenHash } from "@/lib/auth/account-links";
 import { hashPassword } from "@/lib/auth/passwords";
+import { recordAudit } from "@/lib/audit/record";
 
 const REFUSED = {
   unknown: "This link is not valid; open the newest mail you got, or ask an administrator for a new link.",
@@ -22,5 +23,6 @@ export const POST = route(async (request: NextRequest) => {
   const { token, password } = await parseBody(request, newPasswordSchema);
   const used = await useAccountLink(db, tokenHash(token), await hashPassword(password));
   if (!used.ok) throw new ApiProblem(410, `link-${used.reason}`, REFUSED[used.reason]);
+  await recordAudit(db, { id: used.userId, name: used.email, role: "account owner" }, { action: "user.set-password", subject: { type: "user", id: used.userId, label: used.email }, summary: "set their password through a mailed link" });
   return NextResponse.json({ email: used.email });
 });

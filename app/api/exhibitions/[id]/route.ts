@@ -8,6 +8,7 @@ import { ApiProblem } from "@/lib/api/problem";
 import { parseBody, parseParams } from "@/lib/api/parse";
 import { requireRole } from "@/lib/api/require-role";
 import { route } from "@/lib/api/route";
+import { changedFields, recordAudit } from "@/lib/audit/record";
 
 type Context = { params: Promise<{ id: string }> };
 
@@ -22,7 +23,7 @@ export const GET = route<Context>(async (request: NextRequest, context) => {
 });
 
 export const PUT = route<Context>(async (request: NextRequest, context) => {
-  await requireRole(request, "exhibitions:edit");
+  const user = await requireRole(request, "exhibitions:edit");
   const { id } = parseParams(await context.params, exhibitionIdParams);
   const body = await parseBody(request, exhibitionUpdateSchema);
   const exhibition = await db.transaction().execute(async (trx) => {
@@ -31,6 +32,8 @@ export const PUT = route<Context>(async (request: NextRequest, context) => {
     const foreign = await roomsNotOnSite(trx, current.siteId, body.rooms.map((r) => r.roomId));
     if (foreign.length > 0) throw new ApiProblem(422, "invalid-input", `Room ${foreign[0]} is not a room of this site; choose the rooms from the list.`, { field: "rooms" });
     if (await exhibitionNameTaken(trx, current.siteId, body.name, id)) throw new ApiProblem(409, "name-taken", `The site already has an exhibition called ${body.name}; choose another name.`, { field: "name" });
+    const { id: _id, siteId: _site, ...before } = current;
+    await recordAudit(trx, user, { action: "exhibition.update", subject: { type: "exhibition", id, label: body.name }, siteId: current.siteId, summary: `changed the exhibition ${current.name}`, changes: changedFields(before, body) });
     return updateExhibition(trx, id, body);
   });
   return NextResponse.json({ exhibition });

@@ -12,6 +12,7 @@ import { requireRole } from "@/lib/api/require-role";
 import { route } from "@/lib/api/route";
 import { addGuardWithAccount, guardAddressProblem, inviteNewGuard } from "@/lib/people/add-guard";
 import { readStaffCsv, type StaffProblem } from "@/lib/people/staff-csv";
+import { recordAudit } from "@/lib/audit/record";
 
 const importSchema = z.object({
   siteId: z.number().int().positive().max(2_147_483_647),
@@ -44,6 +45,7 @@ export const POST = route(async (request: NextRequest) => {
       if (!added.ok) refuse([{ line, column: "email", message: added.message }]);
       else out.push(added);
     }
+    await recordAudit(trx, manager, { action: "guard.import", subject: { type: "site", id: body.siteId }, siteId: body.siteId, summary: `imported ${out.length} guard(s) from a staff file`, changes: { guards: out.map((c) => ({ id: c.guard.id, name: c.guard.name, email: c.guard.email })) } });
     return out;
   });
   let unmailed = 0;

@@ -17,6 +17,7 @@ import { deleteRoom, floorById, roomBasics, roomNameTaken, roomsInUse, updateRoo
 import { deleteQuerySchema, roomPlaceSchema } from "@/lib/api/galleries";
 import { inUseProblem } from "@/lib/galleries/in-use";
 import { parseQuery } from "@/lib/api/parse";
+import { changedFields, recordAudit } from "@/lib/audit/record";
 
 type Context = { params: Promise<{ roomId: string }> };
 
@@ -51,11 +52,18 @@ export const PUT = route<Context>(async (request: NextRequest, context) => {
     );
   }
   const room = await roomDetail(roomId, db);
+  await recordAudit(db, user, {
+    action: "room.save-walls",
+    subject: { type: "room", id: roomId, label: room?.name },
+    siteId: room?.site.id,
+    summary: `saved the walls of ${room?.name ?? `room ${roomId}`} (version ${saved.version})`,
+    changes: { version: { from: body.version, to: saved.version }, corners: walls.outline.length, obstacles: walls.obstacles.length, ...(body.name ? { name: body.name } : {}) },
+  });
   return NextResponse.json({ room });
 });
 
 export const PATCH = route<Context>(async (request: NextRequest, context) => {
-  await requireRole(request, "rooms:edit");
+  const user = await requireRole(request, "rooms:edit");
   const { roomId } = parseParams(await context.params, roomIdParams);
   const change = await parseBody(request, roomPlaceSchema);
   const room = await db.transaction().execute(async (trx) => {
@@ -72,6 +80,7 @@ export const PATCH = route<Context>(async (request: NextRequest, context) => {
     if (await roomNameTaken(trx, floorId, name, roomId)) {
       throw new ApiProblem(409, "name-taken", `That floor already has a room called ${name}; choose another name.`, { field: "name" });
     }
+    await recordAudit(trx, user, { action: "room.update", subject: { type: "room", id: roomId, label: name }, siteId: current.site_id, summary: `changed the room ${current.name}`, changes: changedFields({ name: current.name, floorId: current.floor_id }, { name: change.name, floorId: change.floorId }) });
     return updateRoomPlace(trx, roomId, {
       ...(change.name !== undefined ? { name: change.name } : {}),
       ...(change.floorId !== undefined && change.floorId !== current.floor_id ? { floor_id: change.floorId } : {}),
@@ -81,14 +90,16 @@ export const PATCH = route<Context>(async (request: NextRequest, context) => {
 });
 
 export const DELETE = route<Context>(async (request: NextRequest, context) => {
-  await requireRole(request, "rooms:edit");
+  const user = await requireRole(request, "rooms:edit");
   const { roomId } = parseParams(await context.params, roomIdParams);
   const { confirm } = parseQuery(request.url, deleteQuerySchema);
   await db.transaction().execute(async (trx) => {
-    if (!(await roomBasics(trx, roomId))) throw new ApiProblem(404, "not-found", `There is no room ${roomId}.`);
+    const room = await roomBasics(trx, roomId);
+    if (!room) throw new ApiProblem(404, "not-found", `There is no room ${roomId}.`);
     const inUse = await roomsInUse(trx, [roomId]);
     if (inUse.length > 0 && confirm !== "yes") throw inUseProblem("this room", inUse);
     await deleteRoom(trx, roomId);
+    await recordAudit(trx, user, { action: "room.delete", subject: { type: "room", id: roomId, label: room.name }, siteId: room.site_id, summary: `deleted the room ${room.name}${inUse.length > 0 ? " while in use, confirmed" : ""}` });
   });
   return NextResponse.json({ deleted: roomId });
 });

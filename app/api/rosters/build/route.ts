@@ -8,6 +8,7 @@ import { ROSTER_BUILD_JOB } from "@/lib/rosters/publish";
 import { buildRequestSchema } from "@/lib/rosters/schemas";
 import { sql } from "kysely";
 import { rosterSite } from "../_shared/site";
+import { recordAudit } from "@/lib/audit/record";
 
 /**
  * POST /api/rosters/build { startsOn }: queues a roster-build job for the week (202); while one for
@@ -29,7 +30,10 @@ export const POST = route(async (request: NextRequest) => {
       .where(sql<boolean>`payload @> ${JSON.stringify({ siteId: site.id, startsOn })}::jsonb`)
       .orderBy("id", "desc")
       .executeTakeFirst();
-    return pending ?? (await enqueueJob(trx, { kind: ROSTER_BUILD_JOB, payload, createdBy: user.id }));
+    if (pending) return pending;
+    const queued = await enqueueJob(trx, { kind: ROSTER_BUILD_JOB, payload, createdBy: user.id });
+    await recordAudit(trx, user, { action: "roster.build", subject: { type: "roster-week", label: startsOn }, siteId: site.id, summary: `asked for a new roster of the week from ${startsOn}`, changes: { startsOn, jobId: queued.id } });
+    return queued;
   });
   return NextResponse.json({ job: { id: job.id, status: job.status, progress: job.progress, message: job.message } }, { status: 202 });
 });

@@ -9,20 +9,22 @@ import { ApiProblem } from "@/lib/api/problem";
 import { parseBody, parseParams, parseQuery } from "@/lib/api/parse";
 import { requireRole } from "@/lib/api/require-role";
 import { route } from "@/lib/api/route";
+import { recordAudit } from "@/lib/audit/record";
 
 type Context = { params: Promise<{ siteId: string }> };
 
 export const PATCH = route<Context>(async (request, context) => {
-  await requireRole(request, "rooms:edit");
+  const user = await requireRole(request, "rooms:edit");
   const { siteId } = parseParams(await context.params, siteIdParams);
   const { name } = await parseBody(request, renameSchema);
   const site = await renameSite(db, siteId, name);
   if (!site) throw new ApiProblem(404, "not-found", `There is no site ${siteId}; reload the page.`);
+  await recordAudit(db, user, { action: "site.rename", subject: { type: "site", id: siteId, label: name }, siteId, summary: `renamed a site to ${name}`, changes: { name: { to: name } } });
   return NextResponse.json({ site });
 });
 
 export const DELETE = route<Context>(async (request: NextRequest, context) => {
-  await requireRole(request, "rooms:edit");
+  const user = await requireRole(request, "rooms:edit");
   const { siteId } = parseParams(await context.params, siteIdParams);
   const { confirm } = parseQuery(request.url, deleteQuerySchema);
   await db.transaction().execute(async (trx) => {
@@ -30,6 +32,7 @@ export const DELETE = route<Context>(async (request: NextRequest, context) => {
     const inUse = await roomsInUse(trx, await roomIdsOfSite(trx, siteId));
     if (inUse.length > 0 && confirm !== "yes") throw inUseProblem("the site", inUse);
     await deleteSite(trx, siteId);
+    await recordAudit(trx, user, { action: "site.delete", subject: { type: "site", id: siteId }, siteId, summary: `deleted site ${siteId}${inUse.length > 0 ? ` with ${inUse.length} room(s) in use, confirmed` : ""}` });
   });
   return NextResponse.json({ deleted: siteId });
 });

@@ -6,6 +6,7 @@ import { parseBody, parseParams } from "@/lib/api/parse";
 import { requireRole } from "@/lib/api/require-role";
 import { route } from "@/lib/api/route";
 import { rosterIdSchema, timeOffDecisionSchema } from "@/lib/rosters/schemas";
+import { recordAudit } from "@/lib/audit/record";
 
 type Context = { params: Promise<{ id: string }> };
 
@@ -23,5 +24,6 @@ export const PATCH = route<Context>(async (request: NextRequest, context) => {
     if (!exists) throw new ApiProblem(404, "not-found", `No time-off request with id ${id}.`);
     throw new ApiProblem(409, "already-decided", `This request was already ${exists.status}; it cannot be decided again.`);
   }
+  await recordAudit(db, user, { action: "time-off.decide", subject: { type: "time-off", id }, summary: `${status} time-off request ${id}`, changes: { status } });
   return NextResponse.json({ request: decided });
 });

@@ -6,12 +6,13 @@ import { parseBody, parseParams } from "@/lib/api/parse";
 import { requireRole } from "@/lib/api/require-role";
 import { route } from "@/lib/api/route";
 import { roleChangeSchema, userIdSchema } from "@/lib/api/user-role";
+import { recordAudit } from "@/lib/audit/record";
 
 type Context = { params: Promise<{ id: string }> };
 
 /** PATCH /api/users/[id] { role }: an admin changes a user's role. */
 export const PATCH = route<Context>(async (request: NextRequest, context) => {
-  await requireRole(request, "users:manage");
+  const admin = await requireRole(request, "users:manage");
   const { id } = parseParams(await context.params, userIdSchema);
   const { role } = await parseBody(request, roleChangeSchema);
 
@@ -25,12 +26,16 @@ export const PATCH = route<Context>(async (request: NextRequest, context) => {
         throw new ApiProblem(409, "last-admin", "This is the only active administrator; make another user admin (or enable one) first.", { field: "role" });
       }
     }
-    return trx
+    const changed = await trx
       .updateTable("users")
       .set({ role })
       .where("id", "=", id)
       .returning(["id", "email", "name", "role"])
       .executeTakeFirstOrThrow();
+    if (target.role !== role) {
+      await recordAudit(trx, admin, { action: "user.role", subject: { type: "user", id, label: changed.email }, summary: `changed the role of ${changed.name} from ${target.role} to ${role}`, changes: { role: { from: target.role, to: role } } });
+    }
+    return changed;
   });
   return NextResponse.json({ user: updated });
 });

@@ -7,6 +7,7 @@ import { ApiProblem } from "@/lib/api/problem";
 import { parseParams } from "@/lib/api/parse";
 import { requireRole } from "@/lib/api/require-role";
 import { route } from "@/lib/api/route";
+import { recordAudit } from "@/lib/audit/record";
 
 const STATUS = { unknown: 404, "no-account": 409, disabled: 409, "password-set": 409, "not-sent": 503 } as const;
 
@@ -16,5 +17,7 @@ export const POST = route<{ params: Promise<{ id: string }> }>(async (request: N
   const { id } = parseParams(await context.params, outboxIdSchema);
   const result = await resendOutboxMail(db, id, admin.id);
   if (!result.ok) throw new ApiProblem(STATUS[result.reason], result.reason === "not-sent" ? "mail-unavailable" : result.reason, result.message);
-  return NextResponse.json({ message: await readOutboxMail(db, id) });
+  const message = await readOutboxMail(db, id);
+  await recordAudit(db, admin, { action: "mail.resend", subject: { type: "outbox", id, label: message?.recipient }, summary: `sent "${message?.subject ?? id}" to ${message?.recipient ?? "its recipient"} again` });
+  return NextResponse.json({ message });
 });

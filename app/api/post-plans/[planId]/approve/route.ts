@@ -8,6 +8,7 @@ import { parseParams } from "@/lib/api/parse";
 import { requireRole } from "@/lib/api/require-role";
 import { route } from "@/lib/api/route";
 import { planIdParams } from "@/lib/api/plan-input";
+import { recordAudit } from "@/lib/audit/record";
 
 type Context = { params: Promise<{ planId: string }> };
 
@@ -23,6 +24,9 @@ export const POST = route<Context>(async (request: NextRequest, context) => {
       throw new ApiProblem(409, "stale-plan", approval.message, { roomVersion: approval.roomVersion, planRoomVersion: approval.planRoomVersion });
     }
     throw new ApiProblem(422, "plan-not-covering", approval.message, { covered: approval.covered });
+  }
+  if (!approval.alreadyApproved) {
+    await recordAudit(db, user, { action: "post-plan.approve", subject: { type: "post-plan", id: planId }, summary: `approved post plan ${planId}`, changes: { planId } });
   }
   return NextResponse.json({ plan: approval.plan, alreadyApproved: approval.alreadyApproved });
 });

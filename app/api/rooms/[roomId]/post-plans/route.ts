@@ -14,6 +14,7 @@ import { ROOM_BODY_LIMIT, parseBody, parseParams } from "@/lib/api/parse";
 import { requireRole } from "@/lib/api/require-role";
 import { route } from "@/lib/api/route";
 import { postPlanRequestSchema, roomIdParams } from "@/lib/api/plan-input";
+import { recordAudit } from "@/lib/audit/record";
 
 type Context = { params: Promise<{ roomId: string }> };
 
@@ -33,7 +34,7 @@ export const GET = route<Context>(async (request: NextRequest, context) => {
 });
 
 export const POST = route<Context>(async (request: NextRequest, context) => {
-  await requireRole(request, "plans:approve");
+  const user = await requireRole(request, "plans:approve");
   const { roomId } = parseParams(await context.params, roomIdParams);
   const body = await parseBody(request, postPlanRequestSchema, { limit: ROOM_BODY_LIMIT });
   const room = await roomDetail(roomId, db);
@@ -96,5 +97,12 @@ export const POST = route<Context>(async (request: NextRequest, context) => {
     stoppedBecause = answer.reason;
   }
   const plan = await insertProposedPlan({ roomId, exhibitionId, roomVersion: room.version, options, computed }, db);
+  await recordAudit(db, user, {
+    action: "post-plan.compute",
+    subject: { type: "post-plan", id: plan.id, label: room.name },
+    siteId: room.site.id,
+    summary: `computed a ${computed.method} plan of ${computed.posts.length} post(s) for ${room.name}${exhibition ? ` (${exhibition.name})` : ""}`,
+    changes: { roomId, roomVersion: room.version, exhibitionId, posts: computed.posts.length, method: computed.method, options },
+  });
   return NextResponse.json({ plan, uncovered: computed.uncovered, stoppedBecause }, { status: 201 });
 });

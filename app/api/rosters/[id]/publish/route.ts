@@ -6,6 +6,7 @@ import { route } from "@/lib/api/route";
 import { publishDraft } from "@/lib/rosters/publish";
 import { publishRequestSchema, rosterIdSchema } from "@/lib/rosters/schemas";
 import { refusalsAsProblems } from "../../_shared/problem";
+import { recordAudit } from "@/lib/audit/record";
 
 type Context = { params: Promise<{ id: string }> };
 
@@ -20,6 +21,13 @@ export const POST = route<Context>(async (request: NextRequest, context) => {
   const { id } = parseParams(await context.params, rosterIdSchema);
   const { revision, confirmation, note } = await parseBody(request, publishRequestSchema);
   const publication = await refusalsAsProblems(() => publishDraft(db, { rosterId: id, revision, userId: user.id, confirmation, note }));
+  await recordAudit(db, user, {
+    action: "roster.publish",
+    subject: { type: "roster", id: publication.roster.id, label: `version ${publication.roster.version}` },
+    siteId: publication.roster.site_id,
+    summary: `published version ${publication.roster.version} of the roster${publication.supersedes ? `, replacing roster ${publication.supersedes}` : ""}${note ? ` with the note: ${note}` : ""}`,
+    changes: { draftId: id, version: publication.roster.version, supersedes: publication.supersedes, ...(confirmation ? { confirmation } : {}), ...(note ? { note } : {}) },
+  });
   return NextResponse.json(
     {
       roster: { id: publication.roster.id, version: publication.roster.version, publishedAt: publication.roster.published_at },

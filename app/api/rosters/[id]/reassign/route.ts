@@ -7,6 +7,7 @@ import { reassignInDraft, reassignOptions } from "@/lib/rosters/edit";
 import { reassignOptionsQuerySchema, reassignRequestSchema, rosterIdSchema } from "@/lib/rosters/schemas";
 import { rosterView } from "@/lib/rosters/view";
 import { refusalsAsProblems } from "../../_shared/problem";
+import { recordAudit } from "@/lib/audit/record";
 
 type Context = { params: Promise<{ id: string }> };
 
@@ -31,9 +32,10 @@ export const GET = route<Context>(async (request: NextRequest, context) => {
  * the change would break a rule, 409 when the draft changed since it was loaded; nothing is written then.
  */
 export const POST = route<Context>(async (request: NextRequest, context) => {
-  await requireRole(request, "rosters:publish");
+  const user = await requireRole(request, "rosters:publish");
   const { id } = parseParams(await context.params, rosterIdSchema);
   const body = await parseBody(request, reassignRequestSchema);
   await refusalsAsProblems(() => reassignInDraft(db, { rosterId: id, revision: body.revision, from: body.from, toGuardId: body.toGuardId }));
+  await recordAudit(db, user, { action: "roster.reassign", subject: { type: "roster", id }, summary: `moved a shift of draft roster ${id} to guard ${body.toGuardId}`, changes: { revision: body.revision, from: body.from, toGuardId: body.toGuardId } });
   return NextResponse.json({ roster: await rosterView(db, id) });
 });

@@ -9,6 +9,7 @@ import { parseBody, parseParams } from "@/lib/api/parse";
 import { requireRole } from "@/lib/api/require-role";
 import { route } from "@/lib/api/route";
 import { saveSiteSettingsSchema } from "@/lib/api/site-settings";
+import { changedFields, recordAudit } from "@/lib/audit/record";
 
 type Context = { params: Promise<{ siteId: string }> };
 
@@ -23,7 +24,7 @@ export const GET = route<Context>(async (request: NextRequest, context) => {
 });
 
 export const PUT = route<Context>(async (request: NextRequest, context) => {
-  await requireRole(request, "settings:manage");
+  const admin = await requireRole(request, "settings:manage");
   const { siteId } = parseParams(await context.params, siteIdParams);
   const { previous, settings } = await parseBody(request, saveSiteSettingsSchema);
   const saved = await saveSiteSettings(db, siteId, previous, settings);
@@ -31,6 +32,10 @@ export const PUT = route<Context>(async (request: NextRequest, context) => {
   if (saved === "changed") {
     const current = await siteSettings(db, siteId);
     throw new ApiProblem(409, "settings-changed", "Someone saved other settings for this site meanwhile; nothing was changed. Reload to see them, then make your change again.", { current });
+  }
+  const changes = changedFields(previous as Record<string, unknown>, settings as Record<string, unknown>);
+  if (Object.keys(changes).length > 0) {
+    await recordAudit(db, admin, { action: "settings.save", subject: { type: "site", id: siteId, label: saved.name ?? "" }, siteId, summary: `changed ${Object.keys(changes).join(", ")} of the site settings`, changes });
   }
   // Published rosters keep the settings they were built with: name the weeks to rebuild.
   const changesRosters =

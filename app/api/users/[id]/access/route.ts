@@ -10,6 +10,7 @@ import { parseBody, parseParams } from "@/lib/api/parse";
 import { requireRole } from "@/lib/api/require-role";
 import { route } from "@/lib/api/route";
 import { userIdSchema } from "@/lib/api/user-role";
+import { recordAudit } from "@/lib/audit/record";
 
 type Context = { params: Promise<{ id: string }> };
 
@@ -24,7 +25,11 @@ export const PUT = route<Context>(async (request: NextRequest, context) => {
     if (disabled && target.role === "admin" && !target.disabled_at && (await activeAdminCount(trx)) <= 1) {
       throw new ApiProblem(409, "last-admin", "This is the only active administrator; make another user admin first.", { field: "disabled" });
     }
-    return setUserDisabled(trx, id, disabled);
+    const changed = await setUserDisabled(trx, id, disabled);
+    if (Boolean(target.disabled_at) !== disabled) {
+      await recordAudit(trx, admin, { action: disabled ? "user.disable" : "user.enable", subject: { type: "user", id, label: changed?.email }, summary: `${disabled ? "disabled" : "enabled"} the account of ${changed?.name ?? `user ${id}`}`, changes: { disabled: { from: Boolean(target.disabled_at), to: disabled } } });
+    }
+    return changed;
   });
   return NextResponse.json({ user });
 });

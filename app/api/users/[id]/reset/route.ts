@@ -9,6 +9,7 @@ import { requireRole } from "@/lib/api/require-role";
 import { route } from "@/lib/api/route";
 import { userIdSchema } from "@/lib/api/user-role";
 import { sendAccountLink } from "@/lib/auth/account-links";
+import { recordAudit } from "@/lib/audit/record";
 
 type Context = { params: Promise<{ id: string }> };
 
@@ -20,6 +21,7 @@ export const POST = route<Context>(async (request: NextRequest, context) => {
   if (user.disabled_at) throw new ApiProblem(409, "account-disabled", `${user.name}'s account is disabled; enable it before sending a link.`);
   const purpose = user.password_hash === NO_PASSWORD ? "invite" : "reset";
   const sent = await sendAccountLink(db, user, purpose, admin.id);
+  await recordAudit(db, admin, { action: "user.send-link", subject: { type: "user", id, label: user.email }, summary: `sent ${user.name} a new ${purpose === "invite" ? "invitation" : "password reset"} link${sent.mailed ? "" : " (the mail did not go out)"}`, changes: { purpose, mailed: sent.mailed } });
   if (!sent.mailed) throw new ApiProblem(503, "mail-unavailable", `The mail server did not take the message (${sent.mailError}); try again shortly.`);
   return NextResponse.json({ link: { purpose, expiresAt: sent.expiresAt.toISOString(), mailed: true } });
 });

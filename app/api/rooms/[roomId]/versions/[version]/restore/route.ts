@@ -10,6 +10,7 @@ import { parseBody, parseParams } from "@/lib/api/parse";
 import { requireRole } from "@/lib/api/require-role";
 import { route } from "@/lib/api/route";
 import { validateRoom } from "@/lib/geometry/room";
+import { recordAudit } from "@/lib/audit/record";
 
 type Context = { params: Promise<{ roomId: string; version: string }> };
 
@@ -34,5 +35,7 @@ export const POST = route<Context>(async (request: NextRequest, context) => {
       { currentVersion: saved.currentVersion, yourVersion: currentVersion },
     );
   }
-  return NextResponse.json({ room: await roomDetail(roomId, db), restoredFrom: version });
+  const room = await roomDetail(roomId, db);
+  await recordAudit(db, user, { action: "room.restore", subject: { type: "room", id: roomId, label: room?.name }, siteId: room?.site.id, summary: `restored version ${version} of the walls of ${room?.name ?? `room ${roomId}`} as version ${saved.version}`, changes: { version: { from: currentVersion, to: saved.version }, restoredFrom: version } });
+  return NextResponse.json({ room, restoredFrom: version });
 });

@@ -1,0 +1,90 @@
+"use client";
+// The audit trail as a table: filter by part of the product, by person and by free text; sort by
+// any column. Each change lists its fields as "before → after".
+import { createColumnHelper } from "@tanstack/react-table";
+import { useMemo, useState } from "react";
+import { DataTable } from "@/components/data-table";
+import { useSiteFormat } from "@/components/site-format";
+import { formatDateTime } from "@/lib/format";
+import { AUDIT_AREAS } from "@/lib/audit/areas";
+
+export interface AuditRowView {
+  id: string;
+  at: string;
+  actorId: number | null;
+  actorName: string;
+  actorRole: string;
+  area: string;
+  action: string;
+  subject: string;
+  summary: string;
+  changes: Record<string, unknown>;
+}
+
+const column = createColumnHelper<AuditRowView>();
+const shown = (value: unknown) => (value === null || value === undefined ? "none" : typeof value === "string" ? value : JSON.stringify(value));
+
+function Changes({ changes }: { changes: Record<string, unknown> }) {
+  const entries = Object.entries(changes);
+  if (entries.length === 0) return <span className="text-stone-600">—</span>;
+  return (
+    <ul className="space-y-0.5 text-sm">
+      {entries.map(([field, value]) => {
+        const pair = value && typeof value === "object" && !Array.isArray(value) && ("from" in value || "to" in value) ? (value as { from?: unknown; to?: unknown }) : null;
+        return (
+          <li key={field} className="max-w-md break-words">
+            <span className="font-semibold">{field}</span>: {pair ? `${shown(pair.from)} → ${shown(pair.to)}` : shown(value)}
+          </li>
+        );
+      })}
+    </ul>
+  );
+}
+
+export function AuditTable({ rows }: { rows: AuditRowView[] }) {
+  const format = useSiteFormat();
+  const [area, setArea] = useState("");
+  const [actor, setActor] = useState("");
+  const [search, setSearch] = useState("");
+  const actors = useMemo(() => [...new Map(rows.map((r) => [r.actorName, r.actorRole])).entries()].sort(([a], [b]) => a.localeCompare(b)), [rows]);
+  const columns = useMemo(
+    () => [
+      column.accessor("at", { header: "When", cell: (info) => <span className="whitespace-nowrap">{formatDateTime(format, info.getValue())}</span> }),
+      column.accessor("actorName", { header: "Who", filterFn: "equalsString", cell: (info) => <span>{info.getValue()} <span className="tag">{info.row.original.actorRole}</span></span> }),
+      column.accessor("area", { header: "Part", filterFn: "equalsString", cell: (info) => AUDIT_AREAS[info.getValue() as keyof typeof AUDIT_AREAS] ?? info.getValue() }),
+      column.accessor("summary", { header: "What", cell: (info) => <span><span className="font-semibold">{info.row.original.subject}</span>{info.row.original.subject ? ": " : ""}{info.getValue()}</span> }),
+      column.accessor((row) => JSON.stringify(row.changes), { id: "changes", header: "Changes", enableSorting: false, cell: (info) => <Changes changes={info.row.original.changes} /> }),
+    ],
+    [format],
+  );
+  const filters = [...(area ? [{ id: "area", value: area }] : []), ...(actor ? [{ id: "actorName", value: actor }] : [])];
+  return (
+    <div className="space-y-3">
+      <div className="flex flex-wrap items-end gap-3">
+        <div>
+          <label htmlFor="audit-area" className="block text-sm font-semibold">Part</label>
+          <select id="audit-area" className="field-input mt-0" value={area} onChange={(e) => setArea(e.target.value)}>
+            <option value="">every part</option>
+            {Object.entries(AUDIT_AREAS).map(([key, label]) => (
+              <option key={key} value={key}>{label}</option>
+            ))}
+          </select>
+        </div>
+        <div>
+          <label htmlFor="audit-actor" className="block text-sm font-semibold">Who</label>
+          <select id="audit-actor" className="field-input mt-0" value={actor} onChange={(e) => setActor(e.target.value)}>
+            <option value="">everyone</option>
+            {actors.map(([name, role]) => (
+              <option key={name} value={name}>{name} ({role})</option>
+            ))}
+          </select>
+        </div>
+        <div className="min-w-[12rem] flex-1">
+          <label htmlFor="audit-search" className="block text-sm font-semibold">Search</label>
+          <input id="audit-search" type="search" className="field-input mt-0" placeholder="room, guard, week, note…" value={search} onChange={(e) => setSearch(e.target.value)} />
+        </div>
+      </div>
+      <DataTable data={rows} columns={columns} caption="Changes, newest first" initialSorting={[{ id: "at", desc: true }]} columnFilters={filters} search={search} empty="No changes match." testId="audit" />
+    </div>
+  );
+}
