@@ -1,5 +1,6 @@
 // Exhibitions as the API and the editor's form accept them (pure zod, shared).
 import { z } from "zod";
+import { idParam } from "@/lib/api/ids";
 import { isCalendarDate } from "@/lib/format";
 
 const date = (what: string) =>
@@ -34,5 +35,5 @@ export const exhibitionUpdateSchema = z.object(fields).refine(ordered, order);
 export type ExhibitionUpdate = z.infer<typeof exhibitionUpdateSchema>;
 
 export const exhibitionIdParams = z.object({
-  id: z.string().regex(/^\d{1,10}$/, "the exhibition id is a whole number").transform(Number),
+  id: idParam("id"),
 });

@@ -1,6 +1,7 @@
 // The bodies of the sites, floors and rooms API as zod schemas: the route handlers parse with them
 // and the galleries forms validate with the same ones (react-hook-form + zodResolver).
 import { z } from "zod";
+import { bodyId, counter, idParam } from "@/lib/api/ids";
 import { pointSchema, ringSchema } from "@/lib/api/plan-input";
 import { isCurrency, isTimeZone } from "@/lib/format";
 
@@ -26,7 +27,7 @@ export const renameSchema = z.object({ name: name("item") });
 export type Rename = z.infer<typeof renameSchema>;
 
 export const floorCreateSchema = z.object({
-  siteId: z.number().int().positive(),
+  siteId: bodyId("siteId"),
   name: name("floor"),
   level: z.coerce.number({ error: "the level is a whole number, 0 for the ground floor" }).int("the level is a whole number, 0 for the ground floor").min(-20).max(200),
 });
@@ -42,7 +43,7 @@ export const floorUpdateSchema = z
 /** A new room: a name and walls; without walls it starts as a rectangle `width` × `depth` metres. */
 export const roomCreateSchema = z
   .object({
-    floorId: z.number().int().positive(),
+    floorId: bodyId("floorId"),
     name: name("room"),
     outline: ringSchema.optional(),
     obstacles: z.array(ringSchema).max(2_000).default([]),
@@ -56,11 +57,11 @@ export const roomCreateSchema = z
 export type RoomCreateInput = z.input<typeof roomCreateSchema>;
 
 export const roomPlaceSchema = z
-  .object({ name: name("room").optional(), floorId: z.number().int().positive().optional() })
+  .object({ name: name("room").optional(), floorId: bodyId("floorId").optional() })
   .refine((v) => v.name !== undefined || v.floorId !== undefined, "send a new name or floor");
 
 export const orderSchema = z.object({
-  ids: z.array(z.number().int().positive()).min(1, "send the ids in their new order").max(10_000),
+  ids: z.array(bodyId("ids")).min(1, "send the ids in their new order").max(10_000),
 });
 
 /** DELETE …?confirm=yes deletes even a room in use. */
@@ -68,13 +69,11 @@ export const deleteQuerySchema = z.object({ confirm: z.enum(["yes"]).optional() 
 
 export const restoreSchema = z.object({
   /** The room version the person was looking at; 409 when someone saved since. */
-  currentVersion: z.number().int().positive(),
+  currentVersion: counter("currentVersion"),
 });
 
-const positiveId = (what: string) =>
-  z.coerce.number({ error: `${what} must be a number` }).int(`${what} must be a whole number`).positive(`${what} must be positive`);
-export const siteIdParams = z.object({ siteId: positiveId("siteId") });
-export const floorIdParams = z.object({ floorId: positiveId("floorId") });
-export const roomVersionParams = z.object({ roomId: positiveId("roomId"), version: positiveId("version") });
+export const siteIdParams = z.object({ siteId: idParam("siteId") });
+export const floorIdParams = z.object({ floorId: idParam("floorId") });
+export const roomVersionParams = z.object({ roomId: idParam("roomId"), version: idParam("version") });
 
 export { pointSchema };

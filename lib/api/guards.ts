@@ -1,5 +1,6 @@
 // A guard as People's form and the API accept them (pure zod, shared).
 import { z } from "zod";
+import { idParam } from "@/lib/api/ids";
 
 const hours = (what: string, max: number) =>
   z.number({ error: `${what} must be a number` }).min(0, `${what} cannot be negative`).max(max, `${what} is at most ${max} h a week`);
@@ -25,7 +26,7 @@ export const guardCreateSchema = z.object({ siteId: z.number().int().positive().
 export const guardUpdateSchema = z.object({ ...fields, active: z.boolean() }).refine(contractWithinMax, contractMessage);
 export type GuardUpdate = z.infer<typeof guardUpdateSchema>;
 
-export const guardIdParams = z.object({ id: z.string().regex(/^\d{1,10}$/, "the guard id is a whole number").transform(Number) });
+export const guardIdParams = z.object({ id: idParam("id") });
 
 /** "first-aid, evening" → ["first-aid", "evening"] (the form's skills field). */
 export function skillsFromText(text: string): string[] {

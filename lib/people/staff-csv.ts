@@ -45,8 +45,11 @@ export function readStaffCsv(text: string, maxRows = 2000): { rows: StaffRow[]; 
     const line = i + 2;
     const cell = (column: string) => (record[column] ?? "").trim();
     for (const column of STAFF_COLUMNS) {
-      if (FORMULA.test(cell(column)) && !(column.endsWith("hours") && /^-?\d/.test(cell(column)))) {
-        problems.push({ line, column, message: `starts like a spreadsheet formula (${cell(column).slice(0, 1)}); remove it` });
+      // The cell as written counts too: a leading tab or carriage return is itself a formula lead.
+      const raw = record[column] ?? "";
+      if ((FORMULA.test(cell(column)) && !(column.endsWith("hours") && /^-?\d/.test(cell(column)))) || /^[\t\r]/.test(raw)) {
+        const lead = /^[\t\r]/.test(raw) ? (raw[0] === "\t" ? "a tab" : "a carriage return") : cell(column).slice(0, 1);
+        problems.push({ line, column, message: `starts like a spreadsheet formula (${lead}); remove it` });
       }
     }
     const number = (text: string) => (text === "" ? Number.NaN : Number(text.replace(",", ".")));

@@ -7,6 +7,8 @@ import { siteById } from "@/db/queries/rosters";
 import { addLocalDays, localToInstant } from "@/lib/scheduling/time";
 import { postLabel, roomsOfScenario } from "./shift-events";
 
+import { FIRST_YEAR, LAST_YEAR } from "./schemas";
+
 export const MAX_RANGE_DAYS = 93;
 
 const isoDate = (field: string) =>
@@ -16,7 +18,11 @@ const isoDate = (field: string) =>
     .refine((date) => {
       const day = new Date(`${date}T00:00:00Z`);
       return !Number.isNaN(day.getTime()) && day.toISOString().slice(0, 10) === date;
-    }, "no such day in the calendar");
+    }, "no such day in the calendar")
+    .refine((date) => {
+      const year = Number(date.slice(0, 4));
+      return year >= FIRST_YEAR && year <= LAST_YEAR;
+    }, `${field}: pick a date between ${FIRST_YEAR} and ${LAST_YEAR}`);
 
 const daysFromTo = (from: string, to: string) => (Date.parse(`${to}T00:00:00Z`) - Date.parse(`${from}T00:00:00Z`)) / 86_400_000 + 1;
 

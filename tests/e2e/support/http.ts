@@ -26,7 +26,7 @@ export class CookieJar {
 
 export interface Caller {
   jar: CookieJar;
-  request(path: string, init?: { method?: string; json?: unknown; body?: string; headers?: Record<string, string> }): Promise<Response>;
+  request(path: string, init?: { method?: string; json?: unknown; body?: string; headers?: Record<string, string>; signal?: AbortSignal }): Promise<Response>;
 }
 
 export function caller(): Caller {
@@ -42,7 +42,7 @@ export function caller(): Caller {
         headers["content-type"] = "application/json";
         body = JSON.stringify(init.json);
       }
-      const response = await fetch(baseUrl() + path, { method: init.method ?? "GET", headers, body, redirect: "manual" });
+      const response = await fetch(baseUrl() + path, { method: init.method ?? "GET", headers, body, redirect: "manual", signal: init.signal });
       jar.store(response);
       return response;
     },
