@@ -1,12 +1,16 @@
 "use client";
-// A site's settings, edited by an admin: time zone, locale, currency, the hourly rate, the extra
+// A site's settings, edited by an admin: its name and mail sender, time zone, locale, currency, the hourly rate, the extra
 // hours a week a guard accepts by default, the opening hours per weekday and on special days, and the
 // labour-rule defaults. Saved over the values shown; a conflict says so; a change that affects
 // published rosters names the weeks to rebuild.
+import { useRouter } from "next/navigation";
 import { useState } from "react";
-import { useFieldArray, useForm } from "react-hook-form";
+import { Controller, useFieldArray, useForm } from "react-hook-form";
+import { DateField } from "@/components/date-field";
+import { useSiteFormat } from "@/components/site-format";
 import { apiFetch, ApiRequestError } from "@/lib/api/client";
 import { siteSettingsSchema, type SiteSettingsInput } from "@/lib/api/site-settings";
+import { dateInputShape, formatDate, isCalendarDate } from "@/lib/format";
 import { schemaResolver } from "@/lib/forms/schema-resolver";
 import { ENGINE_LABOUR_DEFAULTS, LABOUR_DEFAULT_KEYS } from "@/lib/scheduling/labour-defaults";
 
@@ -36,6 +40,8 @@ interface DayRow {
   closes: string;
 }
 interface FormValues {
+  name: string;
+  mailSender: string;
   timeZone: string;
   locale: string;
   currency: string;
@@ -52,6 +58,8 @@ const spanOf = (r: DayRow): [string, string] | null => (r.closed ? null : [r.ope
 function toForm(s: SiteSettingsInput): FormValues {
   const rules = { ...ENGINE_LABOUR_DEFAULTS, ...(s.rules ?? {}) };
   return {
+    name: s.name ?? "",
+    mailSender: s.mailSender ?? "",
     timeZone: s.timeZone,
     locale: s.locale,
     currency: s.currency,
@@ -68,6 +76,8 @@ function toForm(s: SiteSettingsInput): FormValues {
 function fromForm(v: FormValues): unknown {
   const number = (text: string) => (text.trim() === "" ? Number.NaN : Number(text.replace(",", ".")));
   return {
+    name: v.name,
+    mailSender: v.mailSender.trim() === "" ? null : v.mailSender,
     timeZone: v.timeZone,
     locale: v.locale,
     currency: v.currency,
@@ -81,7 +91,9 @@ function fromForm(v: FormValues): unknown {
   };
 }
 
-const FIELDS: { name: "timeZone" | "locale" | "currency" | "hourlyRate" | "acceptedExtraHours"; label: string; hint: string; inputMode?: "decimal" }[] = [
+const FIELDS: { name: "name" | "mailSender" | "timeZone" | "locale" | "currency" | "hourlyRate" | "acceptedExtraHours"; label: string; hint: string; inputMode?: "decimal" }[] = [
+  { name: "name", label: "Name of the site", hint: "as pages and mails show it" },
+  { name: "mailSender", label: "Mail sender", hint: "From address of the site's mail, e.g. Security <security@example.org>; empty = Sightward's own" },
   { name: "timeZone", label: "Time zone", hint: "IANA name, e.g. Europe/Berlin" },
   { name: "locale", label: "Locale", hint: "how dates and numbers read, e.g. en-GB" },
   { name: "currency", label: "Currency", hint: "ISO 4217 code, e.g. EUR" },
@@ -92,13 +104,21 @@ const FIELDS: { name: "timeZone" | "locale" | "currency" | "hourlyRate" | "accep
 export function SiteSettingsForm({ siteId, initial }: { siteId: number; initial: SiteSettingsInput }) {
   const [saved, setSaved] = useState<SiteSettingsInput>(initial);
   const [message, setMessage] = useState<{ kind: "ok" | "error"; text: string } | null>(null);
+  const format = useSiteFormat();
+  const router = useRouter();
   const form = useForm<FormValues>({
     defaultValues: toForm(initial),
     // The shared zod schema judges the values (the form holds text; fromForm makes the numbers).
     resolver: schemaResolver(siteSettingsSchema, fromForm, (issue) => {
       // Opening and rules errors are shown beside their section, named by day or rule.
       const [head, kind, key] = issue.path.map(String);
-      const where = head === "opening" ? (kind === "weekly" ? WEEKDAYS.find(([d]) => d === key)?.[1] ?? key : `the special day ${key ?? ""}`) : head === "rules" ? RULE_LABELS[kind as keyof typeof RULE_LABELS]?.label ?? kind : null;
+      // A special day that is no date yet: say how to type it, in the field's own order.
+      if (head === "opening" && kind === "dates" && key !== undefined && !isCalendarDate(key)) {
+        const placeholder = dateInputShape(format.locale).placeholder;
+        return { field: head, message: key ? `the special day “${key}”: type a real date as ${placeholder}` : `a special day has no date yet: give it as ${placeholder}` };
+      }
+      const day = key !== undefined && isCalendarDate(key) ? formatDate(format, key) : key ?? "";
+      const where = head === "opening" ? (kind === "weekly" ? WEEKDAYS.find(([d]) => d === key)?.[1] ?? key : `the special day ${day}`) : head === "rules" ? RULE_LABELS[kind as keyof typeof RULE_LABELS]?.label ?? kind : null;
       return { field: head!, message: where ? `${where}: ${issue.message}` : issue.message };
     }),
   });
@@ -116,7 +136,9 @@ export function SiteSettingsForm({ siteId, initial }: { siteId: number; initial:
       });
       setSaved(settings);
       form.reset(toForm(settings));
-      const weeks = rebuild.length ? ` Published weeks that started before this change: ${rebuild.join(", ")}; rebuild them on Staffing to use it.` : "";
+      // The site's name shows in headings and the shell: let the server parts show the new one.
+      router.refresh();
+      const weeks = rebuild.length ? ` Published weeks that started before this change: ${rebuild.map((week) => formatDate(format, week)).join(", ")}; rebuild them on Staffing to use it.` : "";
       setMessage({ kind: "ok", text: `Settings saved. New rosters use them; rosters already built keep theirs.${weeks}` });
     } catch (error) {
       setMessage({ kind: "error", text: error instanceof ApiRequestError ? error.message : "The settings could not be saved; try again." });
@@ -147,13 +169,13 @@ export function SiteSettingsForm({ siteId, initial }: { siteId: number; initial:
           <div key={day} className="flex flex-wrap items-center gap-3 text-sm">
             <span className="w-24 font-semibold">{label}</span>
             <label className="flex items-center gap-1">
-              <input type="checkbox" {...form.register(`weekly.${day}.closed`)} /> closed
+              <input type="checkbox" aria-label={`${label} closed`} {...form.register(`weekly.${day}.closed`)} /> closed
             </label>
             <label className="flex items-center gap-1">
-              opens <input type="time" className="field-input mt-0 w-32" aria-label={`${label} opens`} disabled={weekly[day]?.closed} {...form.register(`weekly.${day}.opens`)} />
+              opens <input type="text" inputMode="numeric" placeholder="hh:mm" pattern="([01][0-9]|2[0-3]):[0-5][0-9]|24:00" title="A 24-hour time such as 09:30" className="field-input mt-0 w-24" aria-label={`${label} opens`} disabled={weekly[day]?.closed} {...form.register(`weekly.${day}.opens`)} />
             </label>
             <label className="flex items-center gap-1">
-              closes <input type="time" className="field-input mt-0 w-32" aria-label={`${label} closes`} disabled={weekly[day]?.closed} {...form.register(`weekly.${day}.closes`)} />
+              closes <input type="text" inputMode="numeric" placeholder="hh:mm" pattern="([01][0-9]|2[0-3]):[0-5][0-9]|24:00" title="A 24-hour time such as 09:30" className="field-input mt-0 w-24" aria-label={`${label} closes`} disabled={weekly[day]?.closed} {...form.register(`weekly.${day}.closes`)} />
             </label>
           </div>
         ))}
@@ -164,12 +186,18 @@ export function SiteSettingsForm({ siteId, initial }: { siteId: number; initial:
         {dates.fields.length === 0 && <p className="text-sm text-stone-700">None.</p>}
         {dates.fields.map((field, i) => (
           <div key={field.id} className="flex flex-wrap items-center gap-3 text-sm">
-            <input type="date" className="field-input mt-0 w-44" aria-label={`Special day ${i + 1}`} {...form.register(`dates.${i}.date`)} />
+            <Controller
+              control={form.control}
+              name={`dates.${i}.date`}
+              render={({ field: date }) => (
+                <DateField id={id(`special-${field.id}`)} label={`Special day ${i + 1}`} hideLabel name={date.name} value={date.value} onChange={date.onChange} onBlur={date.onBlur} inputRef={date.ref} inputClassName="mt-0 w-44" />
+              )}
+            />
             <label className="flex items-center gap-1">
-              <input type="checkbox" {...form.register(`dates.${i}.closed`)} /> closed
+              <input type="checkbox" aria-label={`Special day ${i + 1} closed`} {...form.register(`dates.${i}.closed`)} /> closed
             </label>
-            <input type="time" className="field-input mt-0 w-32" aria-label={`Special day ${i + 1} opens`} disabled={special[i]?.closed} {...form.register(`dates.${i}.opens`)} />
-            <input type="time" className="field-input mt-0 w-32" aria-label={`Special day ${i + 1} closes`} disabled={special[i]?.closed} {...form.register(`dates.${i}.closes`)} />
+            <input type="text" inputMode="numeric" placeholder="hh:mm" pattern="([01][0-9]|2[0-3]):[0-5][0-9]|24:00" title="A 24-hour time such as 09:30" className="field-input mt-0 w-24" aria-label={`Special day ${i + 1} opens`} disabled={special[i]?.closed} {...form.register(`dates.${i}.opens`)} />
+            <input type="text" inputMode="numeric" placeholder="hh:mm" pattern="([01][0-9]|2[0-3]):[0-5][0-9]|24:00" title="A 24-hour time such as 09:30" className="field-input mt-0 w-24" aria-label={`Special day ${i + 1} closes`} disabled={special[i]?.closed} {...form.register(`dates.${i}.closes`)} />
             <button type="button" className="button-quiet" onClick={() => dates.remove(i)}>Remove</button>
           </div>
         ))}
