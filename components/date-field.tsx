@@ -2,8 +2,15 @@
 // A date field in the site's own order (dd/mm/yyyy for en-GB), not the browser's month-first
 // control. It shows and takes the locale's digits and hands "YYYY-MM-DD" to the form.
 import { useEffect, useState } from "react";
-import { dateInputShape, parseDateInput, toDateInput } from "@/lib/format";
+import { dateInputShape, isCalendarDate, parseDateInput, toDateInput } from "@/lib/format";
 import { useSiteFormat } from "./site-format";
+
+/** The message under a date field: while it holds no date, what to type (the schemas speak of YYYY-MM-DD); else the form's own. */
+export function dateFieldProblem(locale: string, value: string, message: string | undefined): string | undefined {
+  if (!message || isCalendarDate(value)) return message;
+  const placeholder = dateInputShape(locale).placeholder;
+  return value ? `type a real date as ${placeholder}` : `give a date as ${placeholder}`;
+}
 
 export interface DateFieldProps {
   id: string;
@@ -17,9 +24,15 @@ export interface DateFieldProps {
   describedBy?: string;
   invalid?: boolean;
   required?: boolean;
+  /** Keeps the label for screen readers only, where a row of fields shares one visible heading. */
+  hideLabel?: boolean;
+  /** Extra classes for the input (its width in a row of fields). */
+  inputClassName?: string;
+  /** react-hook-form's field ref, so a rejected form can focus the field. */
+  inputRef?: React.Ref<HTMLInputElement>;
 }
 
-export function DateField({ id, label, value, onChange, onBlur, name, describedBy, invalid, required }: DateFieldProps) {
+export function DateField({ id, label, value, onChange, onBlur, name, describedBy, invalid, required, hideLabel, inputClassName, inputRef }: DateFieldProps) {
   const { locale } = useSiteFormat();
   const shape = dateInputShape(locale);
   const [text, setText] = useState(() => (value ? toDateInput(locale, value) || value : ""));
@@ -30,11 +43,12 @@ export function DateField({ id, label, value, onChange, onBlur, name, describedB
   }, [value, locale]);
   return (
     <div>
-      <label htmlFor={id} className="block text-sm font-semibold">
-        {label} <span className="font-normal text-stone-600">({shape.placeholder})</span>
+      <label htmlFor={id} className={hideLabel ? "sr-only" : "field-label"}>
+        {label} <span className="font-normal text-stone-700">({shape.placeholder})</span>
       </label>
       <input
         id={id}
+        ref={inputRef}
         name={name}
         type="text"
         inputMode="numeric"
@@ -46,7 +60,7 @@ export function DateField({ id, label, value, onChange, onBlur, name, describedB
         value={text}
         aria-describedby={describedBy}
         aria-invalid={invalid || undefined}
-        className="field-input"
+        className={inputClassName ? `field-input ${inputClassName}` : "field-input"}
         onChange={(event) => {
           setText(event.target.value);
           onChange(parseDateInput(locale, event.target.value) ?? event.target.value);

@@ -4,7 +4,7 @@ import { db } from "@/db";
 import { guardByUserId } from "@/db/queries/rosters";
 import { ROLE_LABELS } from "@/lib/auth/roles";
 import { requirePageUser } from "@/lib/auth/session";
-import { calendarDate, siteTime } from "@/components/when";
+import { formatDate, formatNumber, formatSpan, siteFormat, type SiteFormat } from "@/lib/format";
 import { currentExhibition, exhibitionsWithRooms, floorsWithRooms, mainSite, siteDay } from "./_queries/site";
 import { nextShiftOfGuard } from "./_queries/shifts";
 import { TodayPanel } from "./_components/today-panel";
@@ -33,6 +33,7 @@ export default async function HomePage() {
   const day = siteDay(site);
   const [floors, exhibitions] = await Promise.all([floorsWithRooms(site.id), exhibitionsWithRooms(site.id)]);
   const exhibition = currentExhibition(exhibitions, day.date);
+  const f = siteFormat(site);
 
   return (
     <div className="space-y-6">
@@ -43,18 +44,18 @@ export default async function HomePage() {
           Signed in as {user.name} ({ROLE_LABELS[user.role]}).
         </p>
       </div>
-      {user.role === "guard" && <GuardNextShift userId={user.id} timeZone={site.time_zone} />}
+      {user.role === "guard" && <GuardNextShift userId={user.id} format={f} />}
       {user.role === "admin" && <AdminSummary />}
-      {user.role === "operations" && <OperationsSummary siteId={site.id} />}
+      {user.role === "operations" && <OperationsSummary siteId={site.id} format={f} />}
       <div className="grid gap-6 lg:grid-cols-2">
-        <TodayPanel siteName={site.name} day={day} floors={floors} timeZone={site.time_zone} />
-        <ExhibitionPanel current={exhibition} />
+        <TodayPanel siteName={site.name} day={day} floors={floors} format={f} />
+        <ExhibitionPanel current={exhibition} format={f} />
       </div>
     </div>
   );
 }
 
-async function GuardNextShift({ userId, timeZone }: { userId: number; timeZone: string }) {
+async function GuardNextShift({ userId, format }: { userId: number; format: SiteFormat }) {
   const guard = await guardByUserId(db, userId);
   const shift = guard ? await nextShiftOfGuard(guard.id) : null;
   return (
@@ -65,7 +66,7 @@ async function GuardNextShift({ userId, timeZone }: { userId: number; timeZone: 
       ) : shift ? (
         <div className="mt-2">
           <p className="text-lg font-semibold">
-            {siteTime(shift.starts_at, timeZone)} – {siteTime(shift.ends_at, timeZone, "HH:mm")}
+            {formatSpan(format, shift.starts_at, shift.ends_at)}
           </p>
           <p className="text-sm text-stone-700">
             {shift.segments.length} {shift.segments.length === 1 ? "post stretch" : "post stretches"}, {shift.breaks.length}{" "}
@@ -103,7 +104,7 @@ async function AdminSummary() {
   );
 }
 
-async function OperationsSummary({ siteId }: { siteId: number }) {
+async function OperationsSummary({ siteId, format }: { siteId: number; format: SiteFormat }) {
   const [guards, rosters] = await Promise.all([
     db
       .selectFrom("guards")
@@ -116,12 +117,12 @@ async function OperationsSummary({ siteId }: { siteId: number }) {
     <section aria-labelledby="staff" className="card">
       <h2 id="staff">Staff and rosters</h2>
       <p className="mt-2">
-        {Number(guards.count)} guards with {Number(guards.hours ?? 0)} contract hours a week. <Link href="/people">People</Link>
+        {Number(guards.count)} guards with {formatNumber(format, Number(guards.hours ?? 0))} contract hours a week. <Link href="/people">People</Link>
       </p>
       <p className="mt-1">
         {rosters.length === 0
           ? "No rosters yet."
-          : "Latest rosters: " + rosters.map((r) => `week of ${calendarDate(r.starts_on)} (${r.status}, v${r.version})`).join("; ") + "."}{" "}
+          : "Latest rosters: " + rosters.map((r) => `week of ${formatDate(format, r.starts_on)} (${r.status}, v${r.version})`).join("; ") + "."}{" "}
         <Link href="/staffing">Staffing</Link>
       </p>
     </section>

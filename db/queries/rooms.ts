@@ -24,7 +24,7 @@ export interface RoomDetail {
   version: number;
   updated_at: string;
   floor: { id: number; name: string; level: number };
-  site: { id: number; name: string; time_zone: string; hourly_rate: number; opening_hours: OpeningHours };
+  site: { id: number; name: string; time_zone: string; locale: string; currency: string; hourly_rate: number; opening_hours: OpeningHours };
   /** Exhibitions that include the room, latest start first. */
   exhibitions: RoomExhibition[];
 }
@@ -48,6 +48,8 @@ export async function roomDetail(roomId: number, db: Kysely<Database> = appDb): 
       "sites.id as site_id",
       "sites.name as site_name",
       "sites.time_zone",
+      "sites.locale",
+      "sites.currency",
       "sites.hourly_rate",
       "sites.opening_hours",
     ])
@@ -81,6 +83,8 @@ export async function roomDetail(roomId: number, db: Kysely<Database> = appDb): 
       id: row.site_id,
       name: row.site_name,
       time_zone: row.time_zone,
+      locale: row.locale,
+      currency: row.currency,
       hourly_rate: row.hourly_rate,
       opening_hours: row.opening_hours,
     },

@@ -269,6 +269,57 @@ export async function currentShiftsOfGuard(handle: Handle, guardId: number, from
   return query.orderBy("shifts.starts_at").execute();
 }
 
+/** A stretch another guard is at a post on the same floor while the guard is there too. */
+export interface FloorColleagueStretch {
+  /** The guard's own shift this stretch overlaps. */
+  shift_id: number;
+  guard_id: number;
+  guard_name: string;
+  floor_name: string;
+  room_name: string;
+  post: string;
+  /** The other guard's stretch, cut to the guard's own shift. */
+  starts_at: Date;
+  ends_at: Date;
+}
+
+/**
+ * Who else is on the floor during the guard's shifts `shiftIds`: other guards' post stretches in
+ * rooms on a floor where the guard has a stretch at the same time, earliest first. Only the latest
+ * published version of each week counts. A post id names its room ("R12-P1" is in room 12).
+ */
+export async function colleaguesOnFloor(handle: Handle, guardId: number, shiftIds: readonly number[]): Promise<FloorColleagueStretch[]> {
+  if (shiftIds.length === 0) return [];
+  const latest = latestPublishedRosters(handle).clearSelect().select("rosters.id");
+  const { rows } = await sql<FloorColleagueStretch>`
+    with latest as ${latest},
+    own as (
+      select shifts.id, shifts.starts_at, shifts.ends_at
+      from shifts join latest on latest.id = shifts.roster_id
+      where shifts.guard_id = ${guardId} and shifts.id = any(${[...shiftIds]}::int[])
+    ),
+    stretch as (
+      select shifts.id as shift_id, shifts.guard_id, segment.value ->> 'post' as post,
+        (segment.value ->> 'start')::timestamptz as starts_at, (segment.value ->> 'end')::timestamptz as ends_at,
+        rooms.name as room_name, rooms.floor_id
+      from shifts
+      join latest on latest.id = shifts.roster_id
+      cross join lateral jsonb_array_elements(shifts.segments) as segment(value)
+      join rooms on rooms.id = substring(segment.value ->> 'post' from '^R([0-9]{1,9})-P[0-9]+$')::int
+      where shifts.starts_at < (select max(ends_at) from own) and shifts.ends_at > (select min(starts_at) from own)
+    )
+    select distinct mine.shift_id, other.guard_id, guards.name as guard_name, floors.name as floor_name, other.room_name, other.post,
+      greatest(own.starts_at, other.starts_at) as starts_at, least(own.ends_at, other.ends_at) as ends_at
+    from stretch mine
+    join own on own.id = mine.shift_id
+    join stretch other on other.floor_id = mine.floor_id and other.guard_id <> mine.guard_id
+      and other.starts_at < mine.ends_at and other.ends_at > mine.starts_at
+    join guards on guards.id = other.guard_id
+    join floors on floors.id = mine.floor_id
+    order by shift_id, starts_at, guard_name, post`.execute(handle);
+  return rows;
+}
+
 export async function guardByUserId(handle: Handle, userId: number) {
   return (
     (await handle

@@ -6,6 +6,8 @@ import { createHash, randomBytes } from "node:crypto";
 import type { Kysely } from "kysely";
 import type { Database } from "@/db/schema";
 import { insertAccountLink } from "@/db/queries/accounts";
+import { siteFormatOf } from "@/db/queries/sites";
+import { formatDateTime } from "@/lib/format";
 import { MailNotSent, sendAgainOnRow, sendRecorded } from "@/lib/mail/outbox";
 
 export const LINK_HOURS = { invite: 7 * 24, reset: 24 } as const;
@@ -38,12 +40,14 @@ export async function sendAccountLink(
   const expiresAt = new Date(Date.now() + LINK_HOURS[purpose] * 3_600_000);
   await insertAccountLink(db, { userId: user.id, tokenHash: tokenHash(token), purpose, expiresAt, createdBy });
   const link = `${appUrl()}/set-password?token=${token}`;
-  const until = expiresAt.toISOString().slice(0, 16).replace("T", " ");
+  // The main site's locale and zone: accounts belong to no one site, and the app shows that one.
+  const shown = await siteFormatOf(db);
+  const until = `${formatDateTime(shown, expiresAt)} (${shown.timeZone})`;
   const subject = purpose === "invite" ? "Your Sightward account" : "Set a new Sightward password";
   const text =
     purpose === "invite"
-      ? `Hello ${user.name},\n\nan account on Sightward was made for you (${user.email}). Choose your password here:\n\n${link}\n\nThe link works once, until ${until} UTC. If you did not expect this, ignore this mail.\n`
-      : `Hello ${user.name},\n\nsomeone (an administrator, or you) asked to set a new password for ${user.email}. Choose it here:\n\n${link}\n\nThe link works once, until ${until} UTC; your old password works until then. If you did not ask for this, ignore this mail.\n`;
+      ? `Hello ${user.name},\n\nan account on Sightward was made for you (${user.email}). Choose your password here:\n\n${link}\n\nThe link works once, until ${until}. If you did not expect this, ignore this mail.\n`
+      : `Hello ${user.name},\n\nsomeone (an administrator, or you) asked to set a new password for ${user.email}. Choose it here:\n\n${link}\n\nThe link works once, until ${until}; your old password works until then. If you did not ask for this, ignore this mail.\n`;
   try {
     if (outboxId !== undefined) await sendAgainOnRow(db, outboxId, { to: user.email, subject, text });
     else await sendRecorded(db, { kind: purpose === "invite" ? "invitation" : "reset", to: user.email, subject, text, userId: user.id });

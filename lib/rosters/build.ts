@@ -4,6 +4,7 @@ import type { Kysely } from "kysely";
 import type { Database } from "@/db/schema";
 import { approvedPostsForSite } from "@/db/queries/post-plans";
 import { approvedTimeOff, activeGuardsOfSite, replaceDraft, siteById } from "@/db/queries/rosters";
+import { formatDate, siteFormat } from "@/lib/format";
 import type { Scenario } from "@/lib/scheduling/scenario";
 import { addLocalDays } from "@/lib/scheduling/time";
 import { buildRosterOffThread } from "./engine-thread";
@@ -55,7 +56,7 @@ export async function scenarioForWeek(db: Kysely<Database>, siteId: number, star
     approvedTimeOff(db, siteId, startsOn, lastDay),
   ]);
   if (posts.length === 0) {
-    throw new Error(`no approved post plans for an exhibition running in the week of ${startsOn}; approve the rooms' post plans first`);
+    throw new Error(`no approved post plans for an exhibition running in the week of ${formatDate(siteFormat(site), startsOn)}; approve the rooms' post plans first`);
   }
   if (guards.length === 0) throw new Error(`${site.name} has no guards to staff the week`);
   const scenario = assembleScenario({ site, startsOn, posts, guards, timeOff });

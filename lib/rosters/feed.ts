@@ -4,6 +4,7 @@ import type { Kysely } from "kysely";
 import type { Database } from "@/db/schema";
 import { currentShiftsOfGuard, guardByCalendarToken } from "@/db/queries/rosters";
 import { calendarText } from "@/lib/calendar/ics";
+import { siteFormat } from "@/lib/format";
 import { roomsOfScenario, shiftEvents } from "./shift-events";
 
 /** How far back the feed reaches: calendars keep what they already have. */
@@ -13,7 +14,7 @@ const FEED_PAST_DAYS = 60;
 export async function calendarFeed(db: Kysely<Database>, token: string, now = new Date()): Promise<string | null> {
   const guard = await guardByCalendarToken(db, token);
   if (!guard) return null;
-  const site = await db.selectFrom("sites").select(["name", "time_zone"]).where("id", "=", guard.site_id).executeTakeFirst();
+  const site = await db.selectFrom("sites").select(["name", "time_zone", "locale", "currency"]).where("id", "=", guard.site_id).executeTakeFirst();
   const shifts = await currentShiftsOfGuard(db, guard.id, new Date(now.getTime() - FEED_PAST_DAYS * 86_400_000));
   const rosterIds = [...new Set(shifts.map((s) => s.roster_id))];
   const scenarios = rosterIds.length
@@ -21,10 +22,11 @@ export async function calendarFeed(db: Kysely<Database>, token: string, now = ne
     : [];
   const rooms = new Map<string, string>();
   for (const row of scenarios) for (const [post, room] of roomsOfScenario(row.scenario)) rooms.set(post, room);
-  const zone = site?.time_zone ?? "UTC";
+  const shown = siteFormat(site);
+  const zone = shown.timeZone;
   const events = shiftEvents(
     shifts.map((s) => ({ ...s, guard_id: guard.id })),
-    zone,
+    shown,
     site?.name ?? "",
     rooms,
   );

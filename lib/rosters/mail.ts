@@ -1,12 +1,11 @@
 // The publish mail job: every guard with shifts in a published roster gets an e-mail listing them
-// in the site's time zone, with the shifts as an iCalendar attachment. A version that replaces an
+// in the site's locale and time zone, with the shifts as an iCalendar attachment. A version that replaces an
 // earlier one mails only the guards whose shifts changed (a guard with none left is told so), and
 // says what changed. Guards already mailed by an earlier attempt of the same job (recorded in its
 // result) are not mailed twice.
 import type { Kysely } from "kysely";
-import { TZDate } from "@date-fns/tz";
-import { format } from "date-fns";
 import type { Database } from "@/db/schema";
+import { formatDate, siteFormat } from "@/lib/format";
 import { rosterById, shiftsOfRoster, siteById } from "@/db/queries/rosters";
 import { calendarText } from "@/lib/calendar/ics";
 import { RetryLater } from "@/lib/jobs/retry";
@@ -37,6 +36,7 @@ export async function mailPublishedRoster(
   const site = await siteById(db, roster.site_id);
   if (!site) throw new Error(`the site of roster ${rosterId} no longer exists`);
   const zone = site.time_zone;
+  const shown = siteFormat(site);
   const rooms = roomsOfScenario(roster.scenario);
   const shifts = await shiftsOfRoster(db, roster.id);
   // The version this one replaces: only the guards whose shifts differ are mailed.
@@ -49,7 +49,7 @@ export async function mailPublishedRoster(
     ? await db.selectFrom("guards").select(["id", "name", "email", "calendar_token"]).where("id", "in", guardIds).orderBy("id").execute()
     : [];
   const sent = [...alreadySent];
-  const week = format(new TZDate(`${roster.starts_on}T12:00:00Z`, zone), "d MMM yyyy");
+  const week = formatDate(shown, roster.starts_on);
   let done = 0;
   for (const guard of guards) {
     done++;
@@ -57,7 +57,7 @@ export async function mailPublishedRoster(
     const own: ShiftForPeople[] = shifts
       .filter((s) => s.guard_id === guard.id)
       .map((s) => ({ ...s, roster_version: roster.version }));
-    const lines = own.map((s) => `${shiftWhen(s, zone)}\n${shiftPlan(s, zone, rooms).map((line) => `  ${line}`).join("\n")}`);
+    const lines = own.map((s) => `${shiftWhen(s, shown)}\n${shiftPlan(s, shown, rooms).map((line) => `  ${line}`).join("\n")}`);
     const feed = feedUrl(guard.calendar_token);
     // What changed since the replaced version: shifts gone and shifts new, by their times.
     const key = (s: { starts_at: Date; ends_at: Date }) => `${s.starts_at.getTime()}-${s.ends_at.getTime()}`;
@@ -67,8 +67,8 @@ export async function mailPublishedRoster(
     const changed = before
       ? [
           "What changed since the earlier version:",
-          ...gone.map((s) => `  no longer: ${shiftWhen(s, zone)}`),
-          ...added.map((s) => `  new: ${shiftWhen(s, zone)}`),
+          ...gone.map((s) => `  no longer: ${shiftWhen(s, shown)}`),
+          ...added.map((s) => `  new: ${shiftWhen(s, shown)}`),
           ...(gone.length === 0 && added.length === 0 ? ["  the same times, with other posts or breaks (see below)"] : []),
           "",
         ]
@@ -83,7 +83,7 @@ export async function mailPublishedRoster(
       "",
       "Sightward",
     ].join("\n");
-    const ics = calendarText(shiftEvents(own, zone, site.name, rooms), {
+    const ics = calendarText(shiftEvents(own, shown, site.name, rooms), {
       name: `${site.name} shifts`,
       timeZone: zone,
       method: "PUBLISH",

@@ -1,9 +1,8 @@
 // A guard's shifts as people read them: lines for an e-mail and events for a calendar, in the
-// site's time zone, posts named by room.
-import { TZDate } from "@date-fns/tz";
-import { format } from "date-fns";
+// site's locale and time zone, posts named by room.
 import type { ShiftBreak, ShiftSegment } from "@/db/schema";
 import type { CalendarEvent } from "@/lib/calendar/ics";
+import { formatSpan, formatTimeRange, type SiteFormat } from "@/lib/format";
 
 export interface ShiftForPeople {
   guard_id: number;
@@ -33,27 +32,26 @@ export function roomsOfScenario(scenario: unknown): Map<string, string> {
   return new Map(posts.map((p) => [p.id, p.room ?? ""]));
 }
 
-const clock = (instant: Date | string, zone: string) => format(new TZDate(new Date(instant), zone), "HH:mm");
-
-/** "Tue 8 Dec 2026, 10:00–18:00" in the site's zone. */
-export function shiftWhen(shift: Pick<ShiftForPeople, "starts_at" | "ends_at">, zone: string): string {
-  return `${format(new TZDate(shift.starts_at, zone), "EEE d MMM yyyy, HH:mm")}–${clock(shift.ends_at, zone)}`;
+/** "Tue, 8 Dec 2026, 10:00–18:00" (en-GB) in the site's zone. */
+export function shiftWhen(shift: Pick<ShiftForPeople, "starts_at" | "ends_at">, site: SiteFormat): string {
+  return formatSpan(site, shift.starts_at, shift.ends_at);
 }
 
 /** The shift's plan, one stretch per line: "10:00–12:00 Textile Gallery · post 1", "14:00–15:00 break". */
-export function shiftPlan(shift: ShiftForPeople, zone: string, rooms: ReadonlyMap<string, string>): string[] {
+export function shiftPlan(shift: ShiftForPeople, site: SiteFormat, rooms: ReadonlyMap<string, string>): string[] {
   const parts = [
-    ...shift.segments.map((s) => ({ start: s.start, text: `${clock(s.start, zone)}–${clock(s.end, zone)} ${postLabel(s.post, rooms)}` })),
-    ...shift.breaks.map((b) => ({ start: b.start, text: `${clock(b.start, zone)}–${clock(b.end, zone)} break` })),
+    ...shift.segments.map((s) => ({ start: s.start, text: `${formatTimeRange(site, s.start, s.end)} ${postLabel(s.post, rooms)}` })),
+    ...shift.breaks.map((b) => ({ start: b.start, text: `${formatTimeRange(site, b.start, b.end)} break` })),
   ];
   return parts.sort((a, b) => new Date(a.start).getTime() - new Date(b.start).getTime()).map((p) => p.text);
 }
 
 /**
  * One calendar event per shift. The UID names guard and start, so a later version of the same
- * shift replaces it in the guard's calendar (SEQUENCE = roster version).
+ * shift replaces it in the guard's calendar (SEQUENCE = roster version). Start and end stay
+ * machine instants; only the description is written the site's way.
  */
-export function shiftEvents(shifts: readonly ShiftForPeople[], zone: string, siteName: string, rooms: ReadonlyMap<string, string>): CalendarEvent[] {
+export function shiftEvents(shifts: readonly ShiftForPeople[], site: SiteFormat, siteName: string, rooms: ReadonlyMap<string, string>): CalendarEvent[] {
   return shifts.map((shift) => {
     const posts = [...new Set(shift.segments.map((s) => postLabel(s.post, rooms)))];
     return {
@@ -61,7 +59,7 @@ export function shiftEvents(shifts: readonly ShiftForPeople[], zone: string, sit
       start: new Date(shift.starts_at),
       end: new Date(shift.ends_at),
       summary: `Shift: ${posts.slice(0, 2).join(", ")}${posts.length > 2 ? ` and ${posts.length - 2} more` : ""}`,
-      description: [`Times in ${zone}.`, ...shiftPlan(shift, zone, rooms), `Roster version ${shift.roster_version}.`].join("\n"),
+      description: [`Times in ${site.timeZone}.`, ...shiftPlan(shift, site, rooms), `Roster version ${shift.roster_version}.`].join("\n"),
       location: siteName,
       sequence: shift.roster_version,
     };

@@ -45,8 +45,9 @@ describe("exhibitions", () => {
       await page.getByRole("button", { name: "New exhibition" }).click();
       const form = page.getByRole("form", { name: "New exhibition" });
       await form.getByLabel("Name").fill(NAME);
-      await form.getByLabel("Opens").fill("2099-03-01");
-      await form.getByLabel("Closes").fill("2099-01-04");
+      // The demo site reads en-GB: dates are typed day first, dd/mm/yyyy (Unicode CLDR date patterns).
+      await form.getByLabel("Opens").fill("01/03/2099");
+      await form.getByLabel("Closes").fill("04/01/2099");
       await form.getByRole("checkbox", { name: /^Print Room/ }).check();
       await form.getByRole("checkbox", { name: /^Design Lab/ }).check();
       await form.getByLabel("Risk of Print Room").selectOption("high");
@@ -54,11 +55,12 @@ describe("exhibitions", () => {
       await form.getByRole("button", { name: "Create exhibition" }).click();
       await shown(form.getByText("the exhibition cannot close before it opens"));
       expect(await db.selectFrom("exhibitions").select("id").where("name", "=", NAME).executeTakeFirst()).toBeUndefined();
-      await form.getByLabel("Opens").fill("2099-01-04");
-      await form.getByLabel("Closes").fill("2099-03-01");
+      await form.getByLabel("Opens").fill("04/01/2099");
+      await form.getByLabel("Closes").fill("01/03/2099");
       await form.getByRole("button", { name: "Create exhibition" }).click();
       await shown(page.getByRole("heading", { name: NAME }), 30_000);
-      const saved = await db.selectFrom("exhibitions").select("id").where("name", "=", NAME).executeTakeFirstOrThrow();
+      const saved = await db.selectFrom("exhibitions").select(["id", "starts_on", "ends_on"]).where("name", "=", NAME).executeTakeFirstOrThrow();
+      expect([saved.starts_on, saved.ends_on]).toEqual(["2099-01-04", "2099-03-01"]);
       const rooms = await db
         .selectFrom("exhibition_rooms")
         .innerJoin("rooms", "rooms.id", "exhibition_rooms.room_id")

@@ -6,6 +6,7 @@ import type { Browser, Locator } from "playwright-core";
 import { sql } from "kysely";
 import { TZDate } from "@date-fns/tz";
 import { format } from "date-fns";
+import { enGB } from "date-fns/locale";
 import { DEMO_PASSWORD } from "@/db/seed/accounts";
 import { launchBrowser, newContext, signInThroughForm } from "./support/browser";
 import { caller, signedIn, type Caller } from "./support/http";
@@ -134,7 +135,8 @@ describe("operations builds and publishes a week; the guard sees it", () => {
       await page.waitForURL((url) => url.pathname === "/");
       await page.goto(`/staffing?week=${WEEK}`);
       await shown(page.getByRole("heading", { name: "Roster", exact: true }));
-      await expect(page.getByLabel("Week starting (Monday)").inputValue()).resolves.toBe(WEEK);
+      // The demo site reads en-GB: the field shows the Monday day first, dd/mm/yyyy (Unicode CLDR date patterns).
+      await expect(page.getByLabel("Week starting (Monday)").inputValue()).resolves.toBe(WEEK.split("-").reverse().join("/"));
       const build = page.getByRole("button", { name: /^(Build|Rebuild) roster$/ });
       await build.waitFor({ state: "visible" });
       await page.waitForFunction(() => !document.querySelector("button[disabled]")?.textContent?.match(/Build roster/), null, { timeout: 15_000 });
@@ -250,13 +252,15 @@ describe("operations builds and publishes a week; the guard sees it", () => {
       await shown(list);
       const items = await list.locator("li").allTextContents();
       // Each of her shifts in the museum's time, exactly once: no other guard's, no superseded copy.
+      // Written as date-fns's en-GB locale writes the same day (the demo site's locale).
+      const day = (at: Date) => format(new TZDate(at, "Europe/Berlin"), "EEE, d MMM yyyy, HH:mm", { locale: enGB });
       for (const shift of mine) {
-        const when = `${format(new TZDate(shift.starts_at, "Europe/Berlin"), "EEE d MMM, HH:mm")} – ${format(new TZDate(shift.ends_at, "Europe/Berlin"), "HH:mm")}`;
+        const when = `${day(shift.starts_at)}–${format(new TZDate(shift.ends_at, "Europe/Berlin"), "HH:mm")}`;
         expect(items.filter((text) => text.startsWith(when)), when).toHaveLength(1);
       }
       const others = await db.selectFrom("shifts").select(["starts_at"]).where("roster_id", "=", publishedId).where("guard_id", "!=", maraGuardId).execute();
       const ownStarts = new Set(mine.map((s) => s.starts_at.getTime()));
-      const foreign = others.filter((s) => !ownStarts.has(s.starts_at.getTime())).map((s) => format(new TZDate(s.starts_at, "Europe/Berlin"), "EEE d MMM, HH:mm"));
+      const foreign = others.filter((s) => !ownStarts.has(s.starts_at.getTime())).map((s) => day(s.starts_at));
       for (const when of foreign) expect(items.some((text) => text.startsWith(when)), when).toBe(false);
       await shown(page.getByLabel("Feed address"));
     } finally {

@@ -1,7 +1,7 @@
-import { calendarDate } from "@/components/when";
+import { formatDateRange, type SiteFormat } from "@/lib/format";
 import type { ExhibitionWithRooms } from "../_queries/site";
 
-export function ExhibitionPanel({ current }: { current: { exhibition: ExhibitionWithRooms; running: boolean } | null }) {
+export function ExhibitionPanel({ current, format }: { current: { exhibition: ExhibitionWithRooms; running: boolean } | null; format: SiteFormat }) {
   return (
     <section aria-labelledby="exhibition" className="card">
       <h2 id="exhibition">{current?.running === false ? "Next exhibition" : "Current exhibition"}</h2>
@@ -9,7 +9,7 @@ export function ExhibitionPanel({ current }: { current: { exhibition: Exhibition
         <>
           <p className="mt-2 text-lg font-semibold">{current.exhibition.name}</p>
           <p className="text-sm text-stone-700">
-            {calendarDate(current.exhibition.starts_on)} – {calendarDate(current.exhibition.ends_on)}
+            {formatDateRange(format, current.exhibition.starts_on, current.exhibition.ends_on)}
           </p>
           <ul className="mt-3 space-y-1">
             {current.exhibition.rooms.map((room) => (

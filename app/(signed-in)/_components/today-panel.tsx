@@ -1,16 +1,16 @@
-import { calendarDate } from "@/components/when";
+import { formatDay, type SiteFormat } from "@/lib/format";
 import { describeOpening, type FloorWithRooms, type SiteDay } from "../_queries/site";
 
-export function TodayPanel({ siteName, day, floors, timeZone }: { siteName: string; day: SiteDay; floors: FloorWithRooms[]; timeZone: string }) {
+export function TodayPanel({ siteName, day, floors, format }: { siteName: string; day: SiteDay; floors: FloorWithRooms[]; format: SiteFormat }) {
   const roomCount = floors.reduce((sum, floor) => sum + floor.rooms.length, 0);
   return (
     <section aria-labelledby="today" className="card">
       <h2 id="today">Today at {siteName}</h2>
       <p className="mt-1 text-sm text-stone-700">
-        {calendarDate(day.date)} ({timeZone})
+        {formatDay(format, day.date)} ({format.timeZone})
       </p>
       <p className="mt-3 text-lg">
-        Opening hours: <strong>{describeOpening(day.opening)}</strong>
+        Opening hours: <strong>{describeOpening(day.opening, format)}</strong>
         {day.exception && <span className="ml-2 tag">special day</span>}
       </p>
       {day.opening ? (

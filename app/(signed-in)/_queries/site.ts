@@ -1,14 +1,26 @@
 import "server-only";
+import { cache } from "react";
 import { TZDate } from "@date-fns/tz";
 import { format } from "date-fns";
 import { db } from "@/db";
 import type { OpeningHours, OpeningSpan, Site, Weekday } from "@/db/schema";
+import { DEFAULT_FORMAT, formatClock, siteFormat, type SiteFormat } from "@/lib/format";
 import type { Ring } from "@/lib/geometry/types";
 
-/** The site the app shows (the demo has one; the first by id when there are several). */
-export async function mainSite(): Promise<Site | null> {
+/** The site the app shows (the demo has one; the first by id when there are several); read once per request. */
+export const mainSite = cache(async (): Promise<Site | null> => {
   return (await db.selectFrom("sites").selectAll().orderBy("id").limit(1).executeTakeFirst()) ?? null;
-}
+});
+
+/** The main site's locale, zone and currency for the shell; the defaults when the database cannot be read. */
+export const mainSiteFormat = cache(async (): Promise<SiteFormat> => {
+  try {
+    return siteFormat(await mainSite());
+  } catch {
+    // The page beneath reports the failure itself (its error boundary); the shell still renders.
+    return DEFAULT_FORMAT;
+  }
+});
 
 export interface SiteDay {
   date: string;
@@ -30,8 +42,9 @@ export function siteDay(site: Pick<Site, "time_zone" | "opening_hours">, now: Da
   return { date, weekday, opening: hours.weekly?.[weekday] ?? null, exception: false };
 }
 
-export function describeOpening(opening: OpeningSpan): string {
-  return opening ? `${opening[0]}–${opening[1]}` : "closed";
+/** A day's opening as the site reads it: "10:00–18:00", or "closed". */
+export function describeOpening(opening: OpeningSpan, f: SiteFormat): string {
+  return opening ? `${formatClock(f, opening[0])}–${formatClock(f, opening[1])}` : "closed";
 }
 
 export interface RoomSummary {

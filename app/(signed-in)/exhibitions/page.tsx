@@ -2,7 +2,7 @@ import type { Metadata } from "next";
 import Link from "next/link";
 import { postPlansForExhibition } from "@/db/queries/post-plans";
 import { requirePageUser } from "@/lib/auth/session";
-import { calendarDate } from "@/components/when";
+import { formatDateRange, formatNumber, siteFormat } from "@/lib/format";
 import { exhibitionsWithRooms, mainSite, siteDay } from "../_queries/site";
 import { db } from "@/db";
 import { roomsOfSite } from "@/db/queries/exhibitions";
@@ -19,6 +19,7 @@ export default async function ExhibitionsPage() {
   // Each exhibition's post plans, newest first per room: the first approved one is what staffing counts.
   const plans = new Map(await Promise.all(exhibitions.map(async (e) => [e.id, await postPlansForExhibition(e.id)] as const)));
   const today = site ? siteDay(site).date : "";
+  const f = siteFormat(site);
   const siteRooms = site && editable ? await roomsOfSite(db, site.id) : [];
   return (
     <div className="space-y-6">
@@ -38,7 +39,7 @@ export default async function ExhibitionsPage() {
               <span className="tag">{state}</span>
             </div>
             <p className="text-sm text-stone-700">
-              {calendarDate(exhibition.starts_on)} – {calendarDate(exhibition.ends_on)}
+              {formatDateRange(f, exhibition.starts_on, exhibition.ends_on)}
             </p>
             {site && editable && (
               <div className="mt-3">
@@ -77,7 +78,7 @@ export default async function ExhibitionsPage() {
                       <td>
                         <span className={room.risk_level === "high" ? "tag-high" : "tag"}>{room.risk_level}</span>
                       </td>
-                      <td>{room.sight_range == null ? "unlimited" : `${room.sight_range} m`}</td>
+                      <td>{room.sight_range == null ? "unlimited" : `${formatNumber(f, Number(room.sight_range))} m`}</td>
                       <td>{room.double_cover ? "yes" : "no"}</td>
                       <td>
                         <PlanCell roomId={room.id} plans={(plans.get(exhibition.id) ?? []).filter((p) => p.room_id === room.id)} />

@@ -1,12 +1,13 @@
 import type { Metadata } from "next";
 import { startOfWeek } from "date-fns";
 import { db } from "@/db";
-import { currentShiftsOfGuard, guardByUserId, timeOffOfGuard } from "@/db/queries/rosters";
+import { colleaguesOnFloor, currentShiftsOfGuard, guardByUserId, timeOffOfGuard } from "@/db/queries/rosters";
 import { requirePageUser } from "@/lib/auth/session";
 import { postLabel, roomsOfScenario } from "@/lib/rosters/shift-events";
-import { siteTime } from "@/components/when";
+import { formatSpan, formatTimeRange, siteFormat } from "@/lib/format";
 import { mainSite } from "../_queries/site";
 import { ShiftCalendar } from "./_components/shift-calendar";
+import { calendarShifts, openingDate } from "./calendar-shifts";
 import { CalendarFeed } from "./_components/calendar-feed";
 import { TimeOffForm, type OwnTimeOff } from "./_components/time-off-form";
 
@@ -24,6 +25,9 @@ export default async function MyShiftsPage() {
   const rooms = new Map<string, string>();
   for (const row of scenarios) for (const [post, room] of roomsOfScenario(row.scenario)) rooms.set(post, room);
   const timeZone = site?.time_zone ?? "UTC";
+  const shown = siteFormat(site);
+  // The other guards on the same floor during each shift, for the calendar's shift details.
+  const colleagues = guard ? await colleaguesOnFloor(db, guard.id, shifts.map((s) => s.id)) : [];
 
   return (
     <div className="space-y-6">
@@ -43,12 +47,12 @@ export default async function MyShiftsPage() {
             {shifts.map((shift) => (
               <li key={shift.id} className="py-2">
                 <p className="font-semibold">
-                  {siteTime(shift.starts_at, timeZone)} – {siteTime(shift.ends_at, timeZone, "HH:mm")}
+                  {formatSpan(shown, shift.starts_at, shift.ends_at)}
                   <span className="ml-2 tag">version {shift.roster_version}</span>
                 </p>
                 <p className="text-sm text-stone-700">
-                  {shift.segments.map((segment) => `${postLabel(segment.post, rooms)} ${siteTime(segment.start, timeZone, "HH:mm")}–${siteTime(segment.end, timeZone, "HH:mm")}`).join(" · ") || "no posts listed"}
-                  {shift.breaks.length > 0 && ` · breaks: ${shift.breaks.map((b) => `${siteTime(b.start, timeZone, "HH:mm")}–${siteTime(b.end, timeZone, "HH:mm")}`).join(", ")}`}
+                  {shift.segments.map((segment) => `${postLabel(segment.post, rooms)} ${formatTimeRange(shown, segment.start, segment.end)}`).join(" · ") || "no posts listed"}
+                  {shift.breaks.length > 0 && ` · breaks: ${shift.breaks.map((b) => formatTimeRange(shown, b.start, b.end)).join(", ")}`}
                 </p>
               </li>
             ))}
@@ -57,15 +61,7 @@ export default async function MyShiftsPage() {
       </section>
       <section aria-labelledby="week-view" className="card">
         <h2 id="week-view" className="mb-3">Week view</h2>
-        <ShiftCalendar
-          timeZone={timeZone}
-          shifts={shifts.map((shift) => ({
-            id: String(shift.id),
-            start: shift.starts_at.toISOString(),
-            end: shift.ends_at.toISOString(),
-            title: [...new Set(shift.segments.map((segment) => rooms.get(segment.post) || segment.post))].join(", ") || "Shift",
-          }))}
-        />
+        <ShiftCalendar timeZone={timeZone} initialDate={openingDate(shifts, timeZone)} shifts={calendarShifts(shifts, rooms, colleagues)} />
       </section>
       {guard && (
         <section aria-labelledby="feed" className="card space-y-2">

@@ -2,6 +2,8 @@ import type { Metadata } from "next";
 import { db } from "@/db";
 import { requirePageUser } from "@/lib/auth/session";
 import { siteSettings } from "@/db/queries/site-settings";
+import { SiteFormatProvider } from "@/components/site-format";
+import { siteFormat } from "@/lib/format";
 import { SiteSettingsForm } from "./_components/site-settings-form";
 
 export const metadata: Metadata = { title: "Settings" };
@@ -20,7 +22,12 @@ export default async function SettingsPage() {
       {sites.map((site) => (
         <section key={site.id} aria-labelledby={`site-${site.id}`} className="card">
           <h2 id={`site-${site.id}`}>{site.name}</h2>
-          {settings.get(site.id) && <SiteSettingsForm siteId={site.id} initial={settings.get(site.id)!} />}
+          {/* Each site's dates in its own format, not the main site's. */}
+          {settings.get(site.id) && (
+            <SiteFormatProvider value={siteFormat(site)}>
+              <SiteSettingsForm siteId={site.id} initial={settings.get(site.id)!} />
+            </SiteFormatProvider>
+          )}
         </section>
       ))}
     </div>

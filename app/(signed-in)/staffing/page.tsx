@@ -6,7 +6,7 @@ import { rosterWeeks } from "@/lib/rosters/weeks";
 import { requirePageUser } from "@/lib/auth/session";
 import { addLocalDays, weekdayIndex } from "@/lib/scheduling/time";
 import { isMonday } from "@/lib/rosters/scenario";
-import { calendarDate, siteTime } from "@/components/when";
+import { formatDate, formatDateTime, formatMoney, formatNumber, siteFormat } from "@/lib/format";
 import { describeOpening, mainSite, siteDay } from "../_queries/site";
 import { RosterWorkbench } from "./_components/roster-workbench";
 import { TimeOffDecisions } from "./_components/time-off-decisions";
@@ -59,6 +59,7 @@ export default async function StaffingPage({ searchParams }: { searchParams: Pro
   const weekly = site.opening_hours.weekly;
   const openHours = WEEK.reduce((sum, { day }) => sum + spanHours(weekly[day]), 0);
   const exceptions = Object.entries(site.opening_hours.dates ?? {}).sort(([a], [b]) => a.localeCompare(b));
+  const f = siteFormat(site);
 
   return (
     <div className="space-y-6">
@@ -89,8 +90,8 @@ export default async function StaffingPage({ searchParams }: { searchParams: Pro
               {WEEK.map(({ day, label }) => (
                 <tr key={day}>
                   <th scope="row" className="font-normal">{label}</th>
-                  <td>{describeOpening(weekly[day])}</td>
-                  <td>{spanHours(weekly[day])}</td>
+                  <td>{describeOpening(weekly[day], f)}</td>
+                  <td>{formatNumber(f, spanHours(weekly[day]), 2)}</td>
                 </tr>
               ))}
             </tbody>
@@ -98,7 +99,7 @@ export default async function StaffingPage({ searchParams }: { searchParams: Pro
               <tr>
                 <th scope="row">Week</th>
                 <td />
-                <td className="font-semibold">{openHours}</td>
+                <td className="font-semibold">{formatNumber(f, openHours, 2)}</td>
               </tr>
             </tfoot>
           </table>
@@ -108,7 +109,7 @@ export default async function StaffingPage({ searchParams }: { searchParams: Pro
               <ul className="mt-1 text-sm">
                 {exceptions.map(([date, span]) => (
                   <li key={date}>
-                    {calendarDate(date)}: {describeOpening(span)}
+                    {formatDate(f, date)}: {describeOpening(span, f)}
                   </li>
                 ))}
               </ul>
@@ -121,15 +122,15 @@ export default async function StaffingPage({ searchParams }: { searchParams: Pro
             <dt className="text-stone-700">Guards</dt>
             <dd className="font-semibold">{Number(capacity.guards)}</dd>
             <dt className="text-stone-700">Contract hours a week</dt>
-            <dd className="font-semibold">{Number(capacity.hours ?? 0)}</dd>
+            <dd className="font-semibold">{formatNumber(f, Number(capacity.hours ?? 0))}</dd>
             <dt className="text-stone-700">Hourly rate</dt>
-            <dd className="font-semibold">{site.hourly_rate.toFixed(2)}</dd>
+            <dd className="font-semibold">{formatMoney(f, site.hourly_rate)}</dd>
             <dt className="text-stone-700">Guard-hours per post a week</dt>
-            <dd className="font-semibold">{openHours}</dd>
+            <dd className="font-semibold">{formatNumber(f, openHours, 2)}</dd>
           </dl>
           <p className="mt-3 text-sm text-stone-700">
-            One post staffed through every opening hour needs {openHours} post-hours a week; at the hourly rate that is{" "}
-            {(openHours * site.hourly_rate).toFixed(2)} before breaks, relief and overtime.
+            One post staffed through every opening hour needs {formatNumber(f, openHours, 2)} post-hours a week; at the hourly rate that is{" "}
+            {formatMoney(f, openHours * site.hourly_rate)} before breaks, relief and overtime.
           </p>
         </section>
       </div>
@@ -154,7 +155,7 @@ export default async function StaffingPage({ searchParams }: { searchParams: Pro
                 <tbody key={w.startsOn} data-testid={`roster-week-${w.startsOn}`}>
                   <tr className="bg-stone-100">
                     <th scope="rowgroup" colSpan={5} className="text-left">
-                      <a href={`/staffing?week=${w.startsOn}`}>Week of {calendarDate(w.startsOn)}</a>
+                      <a href={`/staffing?week=${w.startsOn}`}>Week of {formatDate(f, w.startsOn)}</a>
                       <span className="ml-2 font-normal text-stone-700">
                         {w.current ? `version ${w.current.version} is current` : "not published yet"}
                         {w.draftIsNewer && w.current ? "; a newer draft is not published" : ""}
@@ -178,7 +179,7 @@ export default async function StaffingPage({ searchParams }: { searchParams: Pro
                             : "superseded"}
                       </td>
                       <td>{Number(roster.shifts)}</td>
-                      <td>{roster.published_at ? siteTime(roster.published_at, site.time_zone) : "—"}</td>
+                      <td>{roster.published_at ? formatDateTime(f, roster.published_at) : "—"}</td>
                       <td className="max-w-xs text-sm">{roster.publish_note ?? ""}</td>
                     </tr>
                   ))}

@@ -26,6 +26,6 @@ export const POST = route(async (request: NextRequest) => {
   const guard = await signedInGuard(request);
   const body = await parseBody(request, timeOffRequestSchema);
   const created = await insertTimeOff(db, { guardId: guard.id, startsOn: body.startsOn, endsOn: body.endsOn, note: body.note });
-  await recordAudit(db, guard.user, { action: "time-off.request", subject: { type: "time-off", id: created.id, label: guard.name }, siteId: guard.site_id, summary: `asked for time off from ${body.startsOn} to ${body.endsOn}`, changes: { startsOn: body.startsOn, endsOn: body.endsOn } });
+  await recordAudit(db, guard.user, { action: "time-off.request", subject: { type: "time-off", id: created.id, label: guard.name }, siteId: guard.site_id, summary: "asked for time off (the days are in the changes)", changes: { startsOn: body.startsOn, endsOn: body.endsOn } });
   return NextResponse.json({ request: created }, { status: 201 });
 });

@@ -5,7 +5,7 @@ import { createColumnHelper } from "@tanstack/react-table";
 import { useMemo, useState } from "react";
 import { DataTable } from "@/components/data-table";
 import { useSiteFormat } from "@/components/site-format";
-import { formatDateTime } from "@/lib/format";
+import { formatDate, formatDateTime, type SiteFormat } from "@/lib/format";
 import { AUDIT_AREAS } from "@/lib/audit/areas";
 
 export interface AuditRowView {
@@ -22,9 +22,21 @@ export interface AuditRowView {
 }
 
 const column = createColumnHelper<AuditRowView>();
-const shown = (value: unknown) => (value === null || value === undefined ? "none" : typeof value === "string" ? value : JSON.stringify(value));
+// Dates inside a change read like every other date of the site; other values as they were sent.
+function shown(format: SiteFormat, value: unknown): string {
+  if (value === null || value === undefined) return "none";
+  if (typeof value === "string") {
+    if (/^\d{4}-\d{2}-\d{2}$/.test(value)) return formatDate(format, value);
+    if (/^\d{4}-\d{2}-\d{2}T[\d:.]+(Z|[+-]\d{2}:\d{2})$/.test(value)) return formatDateTime(format, value);
+    return value;
+  }
+  if (Array.isArray(value)) return `[${value.map((v) => shown(format, v)).join(", ")}]`;
+  if (typeof value === "object") return `{ ${Object.entries(value as Record<string, unknown>).map(([k, v]) => `${k}: ${shown(format, v)}`).join(", ")} }`;
+  return String(value);
+}
 
 function Changes({ changes }: { changes: Record<string, unknown> }) {
+  const format = useSiteFormat();
   const entries = Object.entries(changes);
   if (entries.length === 0) return <span className="text-stone-600">—</span>;
   return (
@@ -33,7 +45,7 @@ function Changes({ changes }: { changes: Record<string, unknown> }) {
         const pair = value && typeof value === "object" && !Array.isArray(value) && ("from" in value || "to" in value) ? (value as { from?: unknown; to?: unknown }) : null;
         return (
           <li key={field} className="max-w-md break-words">
-            <span className="font-semibold">{field}</span>: {pair ? `${shown(pair.from)} → ${shown(pair.to)}` : shown(value)}
+            <span className="font-semibold">{field}</span>: {pair ? `${shown(format, pair.from)} → ${shown(format, pair.to)}` : shown(format, value)}
           </li>
         );
       })}

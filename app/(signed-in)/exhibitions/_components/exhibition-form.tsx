@@ -4,7 +4,9 @@
 // the server checks again and names the field of anything wrong.
 import { useRouter } from "next/navigation";
 import { useState } from "react";
-import { useForm } from "react-hook-form";
+import { Controller, useForm } from "react-hook-form";
+import { DateField, dateFieldProblem } from "@/components/date-field";
+import { useSiteFormat } from "@/components/site-format";
 import { apiFetch, ApiRequestError } from "@/lib/api/client";
 import { exhibitionUpdateSchema } from "@/lib/api/exhibitions";
 import { schemaResolver } from "@/lib/forms/schema-resolver";
@@ -57,6 +59,7 @@ function fromForm(values: FormValues, siteRooms: SiteRoom[]) {
 
 export function ExhibitionForm({ siteId, siteRooms, initial, onDone }: { siteId: number; siteRooms: SiteRoom[]; initial: ExhibitionValues; onDone: () => void }) {
   const router = useRouter();
+  const { locale } = useSiteFormat();
   const [message, setMessage] = useState<string | null>(null);
   const form = useForm<FormValues>({
     defaultValues: toForm(initial, siteRooms),
@@ -75,6 +78,9 @@ export function ExhibitionForm({ siteId, siteRooms, initial, onDone }: { siteId:
   const errors = form.formState.errors as Record<string, { message?: string } | undefined>;
   const prefix = initial.id ? `exhibition-${initial.id}` : "new-exhibition";
   const included = form.watch("rooms");
+  const [startsOn, endsOn] = form.watch(["startsOn", "endsOn"]);
+  const startsProblem = dateFieldProblem(locale, startsOn, errors.startsOn?.message);
+  const endsProblem = dateFieldProblem(locale, endsOn, errors.endsOn?.message);
 
   async function save(values: FormValues) {
     setMessage(null);
@@ -98,14 +104,24 @@ export function ExhibitionForm({ siteId, siteRooms, initial, onDone }: { siteId:
           {errors.name && <p role="alert" className="text-sm text-alert-700">{errors.name.message}</p>}
         </div>
         <div>
-          <label htmlFor={`${prefix}-starts`} className="field-label">Opens</label>
-          <input id={`${prefix}-starts`} type="date" className="field-input" {...form.register("startsOn")} aria-invalid={errors.startsOn ? true : undefined} />
-          {errors.startsOn && <p role="alert" className="text-sm text-alert-700">{errors.startsOn.message}</p>}
+          <Controller
+            control={form.control}
+            name="startsOn"
+            render={({ field }) => (
+              <DateField id={`${prefix}-starts`} label="Opens" name={field.name} value={field.value} onChange={field.onChange} onBlur={field.onBlur} inputRef={field.ref} invalid={Boolean(errors.startsOn)} />
+            )}
+          />
+          {startsProblem && <p role="alert" className="text-sm text-alert-700">{startsProblem}</p>}
         </div>
         <div>
-          <label htmlFor={`${prefix}-ends`} className="field-label">Closes</label>
-          <input id={`${prefix}-ends`} type="date" className="field-input" {...form.register("endsOn")} aria-invalid={errors.endsOn ? true : undefined} />
-          {errors.endsOn && <p role="alert" className="text-sm text-alert-700">{errors.endsOn.message}</p>}
+          <Controller
+            control={form.control}
+            name="endsOn"
+            render={({ field }) => (
+              <DateField id={`${prefix}-ends`} label="Closes" name={field.name} value={field.value} onChange={field.onChange} onBlur={field.onBlur} inputRef={field.ref} invalid={Boolean(errors.endsOn)} />
+            )}
+          />
+          {endsProblem && <p role="alert" className="text-sm text-alert-700">{endsProblem}</p>}
         </div>
       </div>
       <fieldset>

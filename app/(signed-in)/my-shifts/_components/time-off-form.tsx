@@ -3,8 +3,11 @@
 import { zodResolver } from "@hookform/resolvers/zod";
 import { useMutation } from "@tanstack/react-query";
 import { useRouter } from "next/navigation";
-import { useForm } from "react-hook-form";
+import { Controller, useForm } from "react-hook-form";
+import { DateField, dateFieldProblem } from "@/components/date-field";
+import { useSiteFormat } from "@/components/site-format";
 import { apiFetch } from "@/lib/api/client";
+import { formatDate } from "@/lib/format";
 import { timeOffRequestSchema, type TimeOffRequestBody } from "@/lib/rosters/schemas";
 
 export interface OwnTimeOff {
@@ -17,6 +20,7 @@ export interface OwnTimeOff {
 
 export function TimeOffForm({ requests }: { requests: OwnTimeOff[] }) {
   const router = useRouter();
+  const format = useSiteFormat();
   const form = useForm<TimeOffRequestBody>({ resolver: zodResolver(timeOffRequestSchema), defaultValues: { startsOn: "", endsOn: "", note: "" } });
   const ask = useMutation({
     mutationFn: (body: TimeOffRequestBody) => apiFetch("/api/time-off", { body }),
@@ -26,18 +30,29 @@ export function TimeOffForm({ requests }: { requests: OwnTimeOff[] }) {
     },
   });
   const errors = form.formState.errors;
+  const [startsOn, endsOn] = form.watch(["startsOn", "endsOn"]);
   return (
     <>
       <form className="grid gap-3 sm:grid-cols-2" onSubmit={form.handleSubmit((values) => ask.mutate(values))} noValidate>
         <div>
-          <label htmlFor="off-from" className="field-label">First day off</label>
-          <input id="off-from" type="date" className="field-input" aria-invalid={errors.startsOn ? true : undefined} aria-describedby="off-from-error" {...form.register("startsOn")} />
-          <p id="off-from-error" className="text-sm text-alert-700">{errors.startsOn?.message}</p>
+          <Controller
+            control={form.control}
+            name="startsOn"
+            render={({ field }) => (
+              <DateField id="off-from" label="First day off" name={field.name} value={field.value} onChange={field.onChange} onBlur={field.onBlur} inputRef={field.ref} invalid={Boolean(errors.startsOn)} describedBy="off-from-error" />
+            )}
+          />
+          <p id="off-from-error" className="text-sm text-alert-700">{dateFieldProblem(format.locale, startsOn, errors.startsOn?.message)}</p>
         </div>
         <div>
-          <label htmlFor="off-to" className="field-label">Last day off</label>
-          <input id="off-to" type="date" className="field-input" aria-invalid={errors.endsOn ? true : undefined} aria-describedby="off-to-error" {...form.register("endsOn")} />
-          <p id="off-to-error" className="text-sm text-alert-700">{errors.endsOn?.message}</p>
+          <Controller
+            control={form.control}
+            name="endsOn"
+            render={({ field }) => (
+              <DateField id="off-to" label="Last day off" name={field.name} value={field.value} onChange={field.onChange} onBlur={field.onBlur} inputRef={field.ref} invalid={Boolean(errors.endsOn)} describedBy="off-to-error" />
+            )}
+          />
+          <p id="off-to-error" className="text-sm text-alert-700">{dateFieldProblem(format.locale, endsOn, errors.endsOn?.message)}</p>
         </div>
         <div className="sm:col-span-2">
           <label htmlFor="off-note" className="field-label">Note for operations</label>
@@ -51,6 +66,7 @@ export function TimeOffForm({ requests }: { requests: OwnTimeOff[] }) {
         </div>
       </form>
       {requests.length > 0 && (
+        <div className="overflow-x-auto">
         <table className="data-table">
           <caption className="sr-only">Your time-off requests</caption>
           <thead>
@@ -64,14 +80,15 @@ export function TimeOffForm({ requests }: { requests: OwnTimeOff[] }) {
           <tbody>
             {requests.map((r) => (
               <tr key={r.id}>
-                <td>{r.startsOn}</td>
-                <td>{r.endsOn}</td>
+                <td className="whitespace-nowrap">{formatDate(format, r.startsOn)}</td>
+                <td className="whitespace-nowrap">{formatDate(format, r.endsOn)}</td>
                 <td>{r.note || "—"}</td>
                 <td><span className="tag">{r.status}</span></td>
               </tr>
             ))}
           </tbody>
         </table>
+        </div>
       )}
     </>
   );

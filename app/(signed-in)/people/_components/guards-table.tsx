@@ -8,7 +8,9 @@ import {
   useReactTable,
   type SortingState,
 } from "@tanstack/react-table";
-import { useState } from "react";
+import { useMemo, useState } from "react";
+import { useSiteFormat } from "@/components/site-format";
+import { formatHours, formatNumber, type SiteFormat } from "@/lib/format";
 import { GuardEditor } from "./guard-form";
 
 export interface PeopleGuard {
@@ -26,9 +28,8 @@ export interface PeopleGuard {
   weekOvertime: number | null;
 }
 
-
 const column = createColumnHelper<PeopleGuard>();
-const baseColumns = [
+const baseColumns = (site: SiteFormat) => [
   column.accessor("name", { header: "Name", cell: (info) => (
     <span>
       {info.getValue()}
@@ -36,11 +37,11 @@ const baseColumns = [
     </span>
   ) }),
   column.accessor("email", { header: "E-mail" }),
-  column.accessor("contractHours", { header: "Contract hours" }),
-  column.accessor("maxHours", { header: "Max hours" }),
-  column.accessor((row) => row.weekHours ?? -1, { id: "week", header: "Hours this week", cell: (info) => (info.row.original.weekHours === null ? "not published" : `${info.row.original.weekHours} h`) }),
-  column.accessor((row) => row.weekOvertime ?? -1, { id: "overtime", header: "Overtime", cell: (info) => (info.row.original.weekOvertime === null ? "–" : `${info.row.original.weekOvertime} h`) }),
-  column.accessor((row) => row.acceptedExtraHours ?? -1, { id: "extra", header: "Accepted extra", cell: (info) => (info.row.original.acceptedExtraHours === null ? "site default" : `${info.row.original.acceptedExtraHours} h`) }),
+  column.accessor("contractHours", { header: "Contract hours", cell: (info) => formatNumber(site, info.getValue()) }),
+  column.accessor("maxHours", { header: "Max hours", cell: (info) => formatNumber(site, info.getValue()) }),
+  column.accessor((row) => row.weekHours ?? -1, { id: "week", header: "Hours this week", cell: (info) => (info.row.original.weekHours === null ? "not published" : formatHours(site, info.row.original.weekHours)) }),
+  column.accessor((row) => row.weekOvertime ?? -1, { id: "overtime", header: "Overtime", cell: (info) => (info.row.original.weekOvertime === null ? "–" : formatHours(site, info.row.original.weekOvertime)) }),
+  column.accessor((row) => row.acceptedExtraHours ?? -1, { id: "extra", header: "Accepted extra", cell: (info) => (info.row.original.acceptedExtraHours === null ? "site default" : formatHours(site, info.row.original.acceptedExtraHours)) }),
   column.accessor((row) => row.skills.join(", "), {
     id: "skills",
     header: "Skills",
@@ -58,9 +59,14 @@ const baseColumns = [
 ];
 
 export function GuardsTable({ guards, siteId, editable }: { guards: PeopleGuard[]; siteId: number | null; editable: boolean }) {
-  const columns = editable && siteId !== null
-    ? [...baseColumns, column.display({ id: "actions", header: "Change", cell: (info) => <GuardEditor siteId={siteId} guard={info.row.original} /> })]
-    : baseColumns;
+  const site = useSiteFormat();
+  const columns = useMemo(
+    () =>
+      editable && siteId !== null
+        ? [...baseColumns(site), column.display({ id: "actions", header: "Change", cell: (info) => <GuardEditor siteId={siteId} guard={info.row.original} /> })]
+        : baseColumns(site),
+    [site, editable, siteId],
+  );
   const [sorting, setSorting] = useState<SortingState>([{ id: "name", desc: false }]);
   const [filter, setFilter] = useState("");
   const table = useReactTable({

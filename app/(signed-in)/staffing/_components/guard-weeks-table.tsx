@@ -2,40 +2,46 @@
 // Each guard's week on the roster shown: contract, planned hours against contract and limit,
 // overtime, late shifts, weekend days, the longest run of days, and flags in plain words.
 import { createColumnHelper, flexRender, getCoreRowModel, getSortedRowModel, useReactTable, type SortingState } from "@tanstack/react-table";
-import { useState } from "react";
+import { useMemo, useState } from "react";
+import { useSiteFormat } from "@/components/site-format";
+import { formatNumber, type SiteFormat } from "@/lib/format";
 import type { RosterView } from "./roster-types";
 
 type Row = RosterView["guardWeeks"][number];
 const column = createColumnHelper<Row>();
-const h = (value: number) => `${Math.round(value * 10) / 10}`;
-const columns = [
-  column.accessor("name", { header: "Guard" }),
-  column.accessor("contractHours", { header: "Contract h", cell: (info) => h(info.getValue()) }),
-  column.accessor("plannedHours", { header: "Planned h", cell: (info) => h(info.getValue()) }),
-  column.accessor("limitHours", { header: "Limit h", cell: (info) => h(info.getValue()) }),
-  column.accessor("overtimeHours", { header: "Overtime h", cell: (info) => h(info.getValue()) }),
-  column.accessor("lateShifts", { header: "Late shifts" }),
-  column.accessor("weekendDays", { header: "Weekend days" }),
-  column.accessor("daysInARow", { header: "Days in a row" }),
-  column.accessor((row) => row.flags.join(", "), {
-    id: "flags",
-    header: "Flags",
-    cell: (info) =>
-      info.row.original.flags.length === 0 ? (
-        <span className="text-stone-600">none</span>
-      ) : (
-        <ul className="flex flex-wrap gap-1">
-          {info.row.original.flags.map((flag) => (
-            <li key={flag} className={flag === "over the limit" || flag === "at the legal maximum" ? "tag-high" : "tag"}>
-              {flag}
-            </li>
-          ))}
-        </ul>
-      ),
-  }),
-];
+const columnsFor = (site: SiteFormat) => {
+  const h = (value: number) => formatNumber(site, value);
+  return [
+    column.accessor("name", { header: "Guard" }),
+    column.accessor("contractHours", { header: "Contract h", cell: (info) => h(info.getValue()) }),
+    column.accessor("plannedHours", { header: "Planned h", cell: (info) => h(info.getValue()) }),
+    column.accessor("limitHours", { header: "Limit h", cell: (info) => h(info.getValue()) }),
+    column.accessor("overtimeHours", { header: "Overtime h", cell: (info) => h(info.getValue()) }),
+    column.accessor("lateShifts", { header: "Late shifts" }),
+    column.accessor("weekendDays", { header: "Weekend days" }),
+    column.accessor("daysInARow", { header: "Days in a row" }),
+    column.accessor((row) => row.flags.join(", "), {
+      id: "flags",
+      header: "Flags",
+      cell: (info) =>
+        info.row.original.flags.length === 0 ? (
+          <span className="text-stone-600">none</span>
+        ) : (
+          <ul className="flex flex-wrap gap-1">
+            {info.row.original.flags.map((flag) => (
+              <li key={flag} className={flag === "over the limit" || flag === "at the legal maximum" ? "tag-high" : "tag"}>
+                {flag}
+              </li>
+            ))}
+          </ul>
+        ),
+    }),
+  ];
+};
 
 export function GuardWeeksTable({ roster }: { roster: RosterView }) {
+  const site = useSiteFormat();
+  const columns = useMemo(() => columnsFor(site), [site]);
   const [sorting, setSorting] = useState<SortingState>([{ id: "plannedHours", desc: true }]);
   const table = useReactTable({
     data: roster.guardWeeks,

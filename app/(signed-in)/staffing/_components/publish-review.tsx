@@ -7,9 +7,9 @@ import { useQuery } from "@tanstack/react-query";
 import { useForm } from "react-hook-form";
 import { zodResolver } from "@hookform/resolvers/zod";
 import { z } from "zod";
-import { TZDate } from "@date-fns/tz";
-import { format } from "date-fns";
+import { useSiteFormat } from "@/components/site-format";
 import { apiFetch } from "@/lib/api/client";
+import { formatHours, formatSpan, type SiteFormat } from "@/lib/format";
 import type { PublishReview } from "@/lib/rosters/review";
 import type { RosterView } from "./roster-types";
 
@@ -20,16 +20,9 @@ interface Props {
   onCancel: () => void;
 }
 
-function stretch(start: string, end: string, zone: string): string {
-  const from = new TZDate(new Date(start), zone);
-  const to = new TZDate(new Date(end), zone);
-  return `${format(from, "EEE d MMM, HH:mm")}–${format(to, "HH:mm")}`;
-}
-
-const hours = (h: number) => `${Math.round(h * 10) / 10} h`;
-
 export function PublishReviewPanel({ roster, busy, onPublish, onCancel }: Props) {
   const heading = useRef<HTMLHeadingElement>(null);
+  const shown = { ...useSiteFormat(), timeZone: roster.timeZone };
   const review = useQuery({
     queryKey: ["roster-review", roster.id, roster.revision],
     queryFn: () => apiFetch<{ review: PublishReview }>(`/api/rosters/${roster.id}/review`).then((r) => r.review),
@@ -47,9 +40,9 @@ export function PublishReviewPanel({ roster, busy, onPublish, onCancel }: Props)
       {review.error && <p role="alert" className="text-alert-700">{review.error.message}</p>}
       {data && (
         <>
-          <EmptyRooms review={data} zone={roster.timeZone} />
-          <Shortfalls review={data} />
-          <OverContract review={data} />
+          <EmptyRooms review={data} shown={shown} />
+          <Shortfalls review={data} shown={shown} />
+          <OverContract review={data} shown={shown} />
           {data.needsConfirmation ? (
             <ConfirmForm review={data} busy={busy} onPublish={onPublish} onCancel={onCancel} />
           ) : (
@@ -68,7 +61,7 @@ export function PublishReviewPanel({ roster, busy, onPublish, onCancel }: Props)
   );
 }
 
-function EmptyRooms({ review, zone }: { review: PublishReview; zone: string }) {
+function EmptyRooms({ review, shown }: { review: PublishReview; shown: SiteFormat }) {
   if (review.emptyRooms.length === 0) {
     return <p data-testid="review-empty-rooms">Every room open to visitors has a guard in every open hour.</p>;
   }
@@ -82,7 +75,7 @@ function EmptyRooms({ review, zone }: { review: PublishReview; zone: string }) {
           <li key={room.room}>
             <span className="font-semibold">{room.room}</span>
             {room.risk === "high" && <span className="tag-high ml-2">high risk</span>}
-            <span className="block text-sm text-stone-700">{room.hours.map((h) => stretch(h.start, h.end, zone)).join("; ")}</span>
+            <span className="block text-sm text-stone-700">{room.hours.map((h) => formatSpan(shown, h.start, h.end)).join("; ")}</span>
           </li>
         ))}
       </ul>
@@ -94,7 +87,7 @@ function EmptyRooms({ review, zone }: { review: PublishReview; zone: string }) {
   );
 }
 
-function Shortfalls({ review }: { review: PublishReview }) {
+function Shortfalls({ review, shown }: { review: PublishReview; shown: SiteFormat }) {
   if (review.unfilledByRoom.length === 0) return <p>Every post-hour is staffed.</p>;
   return (
     <div className="overflow-x-auto"><table className="data-table">
@@ -112,8 +105,8 @@ function Shortfalls({ review }: { review: PublishReview }) {
           <tr key={r.room}>
             <td>{r.room}</td>
             <td>{r.risk === "high" ? "high" : "standard"}</td>
-            <td className="text-right">{hours(r.postHours)}</td>
-            <td className="text-right">{hours(r.emptyHours ?? 0)}</td>
+            <td className="text-right">{formatHours(shown, r.postHours)}</td>
+            <td className="text-right">{formatHours(shown, r.emptyHours ?? 0)}</td>
           </tr>
         ))}
       </tbody>
@@ -121,7 +114,7 @@ function Shortfalls({ review }: { review: PublishReview }) {
   );
 }
 
-function OverContract({ review }: { review: PublishReview }) {
+function OverContract({ review, shown }: { review: PublishReview; shown: SiteFormat }) {
   if (review.overContract.length === 0) return <p>Nobody is planned past their contract hours.</p>;
   return (
     <div className="overflow-x-auto"><table className="data-table" data-testid="review-over-contract">
@@ -138,10 +131,10 @@ function OverContract({ review }: { review: PublishReview }) {
         {review.overContract.map((g) => (
           <tr key={g.guardId} className={g.plannedHours > g.limitHours ? "text-alert-700" : undefined}>
             <td>{g.name}</td>
-            <td className="text-right">{hours(g.contractHours)}</td>
-            <td className="text-right">{hours(g.plannedHours)}</td>
+            <td className="text-right">{formatHours(shown, g.contractHours)}</td>
+            <td className="text-right">{formatHours(shown, g.plannedHours)}</td>
             <td className="text-right">
-              {hours(g.limitHours)}
+              {formatHours(shown, g.limitHours)}
               {g.plannedHours > g.limitHours ? " — over the limit" : ""}
             </td>
           </tr>

@@ -4,15 +4,17 @@
 // the change is checked again when it is made.
 import { useMutation, useQuery, useQueryClient } from "@tanstack/react-query";
 import { useEffect, useState } from "react";
+import { useSiteFormat } from "@/components/site-format";
 import { apiFetch } from "@/lib/api/client";
+import { formatHours } from "@/lib/format";
 import type { ReassignOption } from "@/lib/rosters/edit";
 import type { RosterView } from "./roster-types";
 import type { Selection } from "./roster-grid";
 
-const hours = (h: number) => `${Math.round(h * 10) / 10} h`;
-
 export function ReassignPanel({ roster, selection, onDone, onCancel }: { roster: RosterView; selection: Selection; onDone: () => void; onCancel: () => void }) {
   const queryClient = useQueryClient();
+  const site = useSiteFormat();
+  const hours = (h: number) => formatHours(site, h);
   const query = new URLSearchParams({ post: selection.post, start: selection.cell.segmentStart });
   if (selection.cell.guardId !== null) query.set("guardId", String(selection.cell.guardId));
   const options = useQuery({

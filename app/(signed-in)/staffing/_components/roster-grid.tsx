@@ -3,8 +3,9 @@
 // On a draft, choosing a cell lets operations give that stretch to another guard; the server checks
 // the change against the rules and refuses it with the rule's message.
 import { TZDate } from "@date-fns/tz";
-import { format } from "date-fns";
 import { useMemo, useState } from "react";
+import { useSiteFormat } from "@/components/site-format";
+import { formatDate, formatShortDay, formatTime } from "@/lib/format";
 import type { RosterView } from "./roster-types";
 import { ReassignPanel } from "./reassign-panel";
 
@@ -42,6 +43,8 @@ export function RosterGrid({ roster, onChanged }: { roster: RosterView; onChange
   const [selection, setSelection] = useState<Selection | null>(null);
   const day = openDays[Math.min(dayIndex, openDays.length - 1)];
   const zone = roster.timeZone;
+  const site = useSiteFormat();
+  const shown = useMemo(() => ({ ...site, timeZone: zone }), [site, zone]);
   const slots = useMemo(() => (day ? hourSlots(day.date, day.opening, zone) : []), [day, zone]);
 
   // post -> slot start -> who stands there
@@ -61,7 +64,7 @@ export function RosterGrid({ roster, onChanged }: { roster: RosterView; onChange
 
   if (openDays.length === 0) return <p>The site is closed all week.</p>;
   const editable = roster.status === "draft";
-  const hour = (t: number) => format(new TZDate(t, zone), "HH:mm");
+  const hour = (t: number | string) => formatTime(shown, t);
 
   return (
     <div className="space-y-3">
@@ -78,7 +81,7 @@ export function RosterGrid({ roster, onChanged }: { roster: RosterView; onChange
               setSelection(null);
             }}
           >
-            {format(new TZDate(`${d.date}T12:00:00Z`, zone), "EEE d MMM")}
+            {formatShortDay(shown, d.date)}
           </button>
         ))}
       </div>
@@ -87,7 +90,7 @@ export function RosterGrid({ roster, onChanged }: { roster: RosterView; onChange
       )}
       <div className="overflow-x-auto">
         <table className="data-table" data-testid="roster-grid">
-          <caption className="sr-only">Who stands at each post, hour by hour, on {day!.date} ({zone})</caption>
+          <caption className="sr-only">Who stands at each post, hour by hour, on {formatDate(shown, day!.date)} ({zone})</caption>
           <thead>
             <tr>
               <th scope="col">Post</th>
@@ -117,7 +120,7 @@ export function RosterGrid({ roster, onChanged }: { roster: RosterView; onChange
                           type="button"
                           className="h-full w-full px-2 py-2 hover:bg-ink-50"
                           aria-label={`${post.label} at ${hour(slot)}: ${cell.guardName ?? "unfilled"}. Reassign`}
-                          onClick={() => setSelection({ post: post.id, postLabel: post.label, cell, when: `${format(new TZDate(slot, zone), "EEE d MMM")} from ${format(new TZDate(Date.parse(cell.segmentStart), zone), "HH:mm")}` })}
+                          onClick={() => setSelection({ post: post.id, postLabel: post.label, cell, when: `${formatShortDay(shown, slot)} from ${hour(cell.segmentStart)}` })}
                         >
                           {text}
                         </button>

@@ -1,21 +1,20 @@
 "use client";
 // A roster's totals, its rule violations (there should be none) and every hour it could not fill, with the reason.
-import { TZDate } from "@date-fns/tz";
-import { format } from "date-fns";
+import { useSiteFormat } from "@/components/site-format";
+import { formatMoney, formatNumber, formatShortDay, formatTime, siteDate } from "@/lib/format";
 import type { RosterView } from "./roster-types";
 import { GuardWeeksTable } from "./guard-weeks-table";
 
-const money = (value: number) => value.toLocaleString("en-GB", { minimumFractionDigits: 2, maximumFractionDigits: 2 });
-
 export function RosterSummary({ roster }: { roster: RosterView }) {
   const totals = roster.totals;
-  const at = (iso: string, pattern: string) => format(new TZDate(new Date(iso), roster.timeZone), pattern);
+  const shown = { ...useSiteFormat(), timeZone: roster.timeZone };
+  const stretch = (start: string, end: string) => `${formatShortDay(shown, start)}, ${formatTime(shown, start)}–${formatTime(shown, end)}`;
   // Unfilled hours with the same post and reason read best as one line per run of hours.
   const groups = new Map<string, { label: string; reason: string; hours: string[] }>();
   for (const u of roster.unfilled) {
-    const key = `${u.post}|${u.reason}|${at(u.start, "yyyy-MM-dd")}`;
+    const key = `${u.post}|${u.reason}|${siteDate(shown, u.start)}`;
     const group = groups.get(key) ?? { label: u.label, reason: u.reason, hours: [] };
-    group.hours.push(`${at(u.start, "EEE d MMM HH:mm")}–${at(u.end, "HH:mm")}`);
+    group.hours.push(stretch(u.start, u.end));
     groups.set(key, group);
   }
   return (
@@ -33,22 +32,22 @@ export function RosterSummary({ roster }: { roster: RosterView }) {
       )}
       {totals && (
         <dl className="grid grid-cols-2 gap-x-6 gap-y-1 text-sm sm:grid-cols-4" aria-label="Roster totals">
-          <Total term="Post-hours" value={String(totals.postHours)} />
-          <Total term="Filled" value={String(totals.filledPostHours)} />
-          <Total term="Unfilled" value={String(totals.unfilledPostHours)} />
-          <Total term="Paid hours" value={String(totals.paidHours)} />
-          <Total term="Overtime hours" value={String(totals.overtimeHours)} />
-          <Total term="Cost" value={money(totals.cost)} />
-          <Total term="Lower bound" value={money(totals.lowerBoundCost)} />
-          <Total term="Gap to bound" value={`${(totals.gap * 100).toFixed(1)} %`} />
-          {typeof totals.unfilledLowerBound === "number" && <Total term="Unfilled at least" value={String(totals.unfilledLowerBound)} />}
+          <Total term="Post-hours" value={formatNumber(shown, totals.postHours)} />
+          <Total term="Filled" value={formatNumber(shown, totals.filledPostHours)} />
+          <Total term="Unfilled" value={formatNumber(shown, totals.unfilledPostHours)} />
+          <Total term="Paid hours" value={formatNumber(shown, totals.paidHours)} />
+          <Total term="Overtime hours" value={formatNumber(shown, totals.overtimeHours)} />
+          <Total term="Cost" value={formatMoney(shown, totals.cost)} />
+          <Total term="Lower bound" value={formatMoney(shown, totals.lowerBoundCost)} />
+          <Total term="Gap to bound" value={`${formatNumber(shown, totals.gap * 100)} %`} />
+          {typeof totals.unfilledLowerBound === "number" && <Total term="Unfilled at least" value={formatNumber(shown, totals.unfilledLowerBound)} />}
         </dl>
       )}
       {totals && typeof totals.unfilledLowerBound === "number" && totals.unfilledPostHours > 0 && (
         <p className="text-sm" data-testid="unfilled-bound">
           {totals.unfilledPostHours <= totals.unfilledLowerBound + 1e-6
             ? "This roster is as full as these guards allow: no roster can staff more post-hours. "
-            : `At least ${totals.unfilledLowerBound} of the ${totals.unfilledPostHours} unfilled post-hours cannot be staffed by any roster with these guards. `}
+            : `At least ${formatNumber(shown, totals.unfilledLowerBound)} of the ${formatNumber(shown, totals.unfilledPostHours)} unfilled post-hours cannot be staffed by any roster with these guards. `}
           {totals.unfilledBoundReason ? `Why: ${totals.unfilledBoundReason}.` : ""}
         </p>
       )}
@@ -62,7 +61,7 @@ export function RosterSummary({ roster }: { roster: RosterView }) {
               {roster.emptyRooms.map((e, i) => (
                 <li key={i}>
                   <span className="font-semibold">{e.room}</span>
-                  {e.risk === "high" ? " (high risk)" : ""}: {at(e.start, "EEE d MMM HH:mm")}–{at(e.end, "HH:mm")}
+                  {e.risk === "high" ? " (high risk)" : ""}: {stretch(e.start, e.end)}
                 </li>
               ))}
             </ul>

@@ -4,15 +4,15 @@
 import { useMutation, useQuery, useQueryClient } from "@tanstack/react-query";
 import { useRouter } from "next/navigation";
 import { useEffect, useState } from "react";
-import { TZDate } from "@date-fns/tz";
-import { format } from "date-fns";
+import { DateField } from "@/components/date-field";
+import { useSiteFormat } from "@/components/site-format";
 import { apiFetch } from "@/lib/api/client";
+import { dateInputShape, formatDateTime, isCalendarDate } from "@/lib/format";
 import { addCalendarDays as shiftDate, isMonday } from "@/lib/rosters/scenario";
 import type { JobState, RosterView, WeekOverview } from "./roster-types";
 import { RosterGrid } from "./roster-grid";
 import { RosterSummary } from "./roster-summary";
 import { PublishReviewPanel } from "./publish-review";
-
 
 function useJob(jobId: number | null) {
   return useQuery({
@@ -28,6 +28,7 @@ function useJob(jobId: number | null) {
 export function RosterWorkbench({ initialWeek, initialRosterId = null }: { initialWeek: string; initialRosterId?: number | null }) {
   const router = useRouter();
   const queryClient = useQueryClient();
+  const { locale } = useSiteFormat();
   const [week, setWeek] = useState(initialWeek);
   const [weekInput, setWeekInput] = useState(initialWeek);
   const [shownRosterId, setShownRosterId] = useState<number | null>(initialRosterId);
@@ -86,7 +87,11 @@ export function RosterWorkbench({ initialWeek, initialRosterId = null }: { initi
     },
   });
 
-  const weekProblem = isMonday(weekInput) ? null : "Pick a Monday: rosters run Monday to Sunday.";
+  const weekProblem = !isCalendarDate(weekInput)
+    ? `Type the Monday as ${dateInputShape(locale).placeholder}.`
+    : isMonday(weekInput)
+      ? null
+      : "Pick a Monday: rosters run Monday to Sunday.";
   const chooseWeek = (next: string) => {
     setWeekInput(next);
     if (isMonday(next)) {
@@ -111,19 +116,14 @@ export function RosterWorkbench({ initialWeek, initialRosterId = null }: { initi
     <section aria-labelledby="roster-heading" className="card space-y-4">
       <h2 id="roster-heading">Roster</h2>
       <div className="flex flex-wrap items-end gap-3">
-        <div>
-          <label htmlFor="roster-week" className="field-label">Week starting (Monday)</label>
-          <input
-            id="roster-week"
-            type="date"
-            className="field-input"
-            value={weekInput}
-            step={7}
-            onChange={(event) => chooseWeek(event.target.value)}
-            aria-invalid={weekProblem ? true : undefined}
-            aria-describedby="roster-week-message"
-          />
-        </div>
+        <DateField
+          id="roster-week"
+          label="Week starting (Monday)"
+          value={weekInput}
+          onChange={chooseWeek}
+          invalid={weekProblem !== null}
+          describedBy="roster-week-message"
+        />
         <button type="button" className="button-quiet" onClick={() => chooseWeek(shiftDate(week, -7))}>Previous week</button>
         <button type="button" className="button-quiet" onClick={() => chooseWeek(shiftDate(week, 7))}>Next week</button>
         <button type="button" className="button" disabled={!interactive || building || weekProblem !== null} onClick={() => build.mutate()}>
@@ -220,9 +220,10 @@ function JobProgress({ label, job }: { label: string; job: JobState }) {
 
 /** The week's state in one line: the version guards go by, and whether the draft holds more. */
 function WeekStatus({ overview, timeZone }: { overview: WeekOverview; timeZone: string | null }) {
+  const site = useSiteFormat();
   const { current, draftIsNewer } = overview.status;
   if (!current && !overview.draft) return null;
-  const when = current?.publishedAt && timeZone ? ` on ${format(new TZDate(new Date(current.publishedAt), timeZone), "EEE d MMM, HH:mm")}` : "";
+  const when = current?.publishedAt && timeZone ? ` on ${formatDateTime({ ...site, timeZone }, current.publishedAt)}` : "";
   return (
     <div className="rounded-md border border-stone-300 p-3" data-testid="week-status">
       <p className="font-semibold" data-testid="published-version">

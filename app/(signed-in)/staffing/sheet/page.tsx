@@ -1,17 +1,14 @@
 import type { Metadata } from "next";
 import Link from "next/link";
-import { TZDate } from "@date-fns/tz";
-import { format } from "date-fns";
 import { db } from "@/db";
 import { requirePageUser } from "@/lib/auth/session";
 import { rosterView, weekOverview } from "@/lib/rosters/view";
-import { isCalendarDate } from "@/lib/format";
+import { formatDay, formatTime, isCalendarDate, siteDate, siteFormat } from "@/lib/format";
 import { addCalendarDays as shiftDate, mondayOf } from "@/lib/rosters/scenario";
 import { mainSite, siteDay } from "../../_queries/site";
 
 export const metadata: Metadata = { title: "Sign-in sheet" };
 export const dynamic = "force-dynamic";
-
 
 /**
  * The day's sign-in sheet for the front desk: every guard on the published roster that day with
@@ -29,12 +26,13 @@ export default async function SignInSheetPage({ searchParams }: { searchParams: 
   const week = await weekOverview(db, site.id, mondayOf(date));
   const current = week.status.current;
   const roster = current ? await rosterView(db, current.id) : null;
-  const onDay = (iso: string) => format(new TZDate(new Date(iso), zone), "yyyy-MM-dd") === date;
-  const clock = (iso: string) => format(new TZDate(new Date(iso), zone), "HH:mm");
+  const f = siteFormat(site);
+  const onDay = (iso: string) => siteDate(f, iso) === date;
+  const clock = (iso: string) => formatTime(f, iso);
   const labels = new Map((roster?.posts ?? []).map((p) => [p.id, p.label]));
   const shifts = (roster?.shifts ?? []).filter((s) => onDay(s.start)).sort((a, b) => a.start.localeCompare(b.start) || a.guardName.localeCompare(b.guardName));
   const closed = (roster?.emptyRooms ?? []).filter((e) => onDay(e.start));
-  const title = format(new TZDate(`${date}T12:00:00Z`, "UTC"), "EEEE d MMMM yyyy");
+  const title = formatDay(f, date);
   return (
     <div className="space-y-4">
       <div className="flex flex-wrap items-center gap-3 print:hidden">

@@ -4,7 +4,9 @@ import { useMutation } from "@tanstack/react-query";
 import { useRouter } from "next/navigation";
 import { useEffect, useState } from "react";
 import { useForm } from "react-hook-form";
+import { useSiteFormat } from "@/components/site-format";
 import { apiFetch } from "@/lib/api/client";
+import { formatDateTime } from "@/lib/format";
 import { roleChangeSchema, type RoleChange } from "@/lib/api/user-role";
 import { ROLE_LABELS, ROLE_NAMES, type Role } from "@/lib/auth/roles";
 
@@ -20,9 +22,9 @@ export interface UserRow {
   invited: boolean;
 }
 
-const when = (iso: string | null) => (iso ? new Date(iso).toLocaleString("en-GB", { dateStyle: "medium", timeStyle: "short", timeZone: "UTC" }) + " UTC" : "never");
-
 export function UsersTable({ users, currentUserId }: { users: UserRow[]; currentUserId: number }) {
+  const site = useSiteFormat();
+  const when = (iso: string | null) => (iso ? formatDateTime(site, iso) : "never");
   return (
     <div className="card overflow-x-auto">
       <table className="data-table">

@@ -32,7 +32,7 @@ export const POST = route(async (request: NextRequest) => {
       .executeTakeFirst();
     if (pending) return pending;
     const queued = await enqueueJob(trx, { kind: ROSTER_BUILD_JOB, payload, createdBy: user.id });
-    await recordAudit(trx, user, { action: "roster.build", subject: { type: "roster-week", label: startsOn }, siteId: site.id, summary: `asked for a new roster of the week from ${startsOn}`, changes: { startsOn, jobId: queued.id } });
+    await recordAudit(trx, user, { action: "roster.build", subject: { type: "roster-week", label: "roster week" }, siteId: site.id, summary: "asked for a new roster of a week (see the week in the changes)", changes: { startsOn, jobId: queued.id } });
     return queued;
   });
   return NextResponse.json({ job: { id: job.id, status: job.status, progress: job.progress, message: job.message } }, { status: 202 });

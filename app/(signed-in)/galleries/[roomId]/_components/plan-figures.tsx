@@ -2,6 +2,8 @@
 // The numbers beside the drawing: n, h, the guaranteed bound and count, the fewest count with its
 // lower bound, and whether the fewest plan is proven minimal.
 import { SIGHT_DRAWING_LIMIT, type PlanAnswer } from "@/components/plan/plan-messages";
+import { useSiteFormat } from "@/components/site-format";
+import { formatNumber } from "@/lib/format";
 import type { FewestPreview } from "@/lib/api/plan-input";
 
 interface Props {
@@ -19,6 +21,7 @@ function percent(share: number): string {
 }
 
 export function PlanFigures({ answer, sightOf, fewest, fewestState, fewestMessage, colourName }: Props) {
+  const site = useSiteFormat();
   const ok = answer?.ok ? answer : null;
   const proven = fewest?.proven === true;
   // The worker certifies the fewest plan's posts once known, else the guaranteed posts.
@@ -41,7 +44,7 @@ export function PlanFigures({ answer, sightOf, fewest, fewestState, fewestMessag
         <dt>Obstacles (h)</dt>
         <dd className="text-right font-semibold">{ok?.obstacles ?? "–"}</dd>
         <dt>Floor area</dt>
-        <dd className="text-right">{ok ? `${ok.area.toFixed(1)} m²` : "–"}</dd>
+        <dd className="text-right">{ok ? `${formatNumber(site, ok.area)} m²` : "–"}</dd>
         <dt title="floor((n + 2h) / 3): no room of this size needs more">Bound ⌊(n+2h)/3⌋</dt>
         <dd className="text-right font-semibold">{ok?.bound ?? "–"}</dd>
         <dt>Guaranteed plan</dt>

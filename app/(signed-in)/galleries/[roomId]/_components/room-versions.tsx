@@ -8,6 +8,8 @@ import { apiFetch, ApiRequestError } from "@/lib/api/client";
 import type { RoomVersionDetail, RoomVersionSummary } from "@/db/queries/galleries";
 import type { Ring } from "@/lib/geometry/types";
 import { RoomOutline } from "@/components/room-outline";
+import { useSiteFormat } from "@/components/site-format";
+import { formatDateTime, formatNumber } from "@/lib/format";
 
 interface Props {
   roomId: number;
@@ -22,6 +24,7 @@ interface Props {
 
 export function RoomVersions({ roomId, roomName, currentVersion, current, canEdit, dirty, onRestored }: Props) {
   const queryClient = useQueryClient();
+  const site = useSiteFormat();
   const list = useQuery({
     queryKey: ["room-versions", roomId, currentVersion],
     queryFn: () => apiFetch<{ current: number; versions: RoomVersionSummary[] }>(`/api/rooms/${roomId}/versions`),
@@ -48,7 +51,6 @@ export function RoomVersions({ roomId, roomName, currentVersion, current, canEdi
     }
   }
 
-  const when = (iso: string) => new Date(iso).toLocaleString("en-GB", { dateStyle: "medium", timeStyle: "short" });
   return (
     <details className="card" data-testid="room-versions">
       <summary className="cursor-pointer font-semibold">Versions of the walls ({list.data?.versions.length ?? "…"})</summary>
@@ -75,11 +77,11 @@ export function RoomVersions({ roomId, roomName, currentVersion, current, canEdi
                     {v.version}
                     {v.version === currentVersion ? " (current)" : ""}
                   </td>
-                  <td className="whitespace-nowrap">{when(v.saved_at)}</td>
+                  <td className="whitespace-nowrap">{formatDateTime(site, v.saved_at)}</td>
                   <td>{v.saved_by?.name ?? "the seed"}</td>
                   <td className="text-right">{v.corners}</td>
                   <td className="text-right">{v.holes}</td>
-                  <td className="text-right">{v.area.toFixed(1)}</td>
+                  <td className="text-right">{formatNumber(site, v.area)}</td>
                   <td className="whitespace-nowrap">
                     {v.version !== currentVersion && (
                       <div className="flex gap-2">

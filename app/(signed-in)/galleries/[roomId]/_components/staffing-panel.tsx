@@ -2,7 +2,9 @@
 // What the plan costs to staff: post-hours per week from the site's weekly opening hours, the FTE
 // they need and the money at the site's hourly rate, for the guaranteed and the fewest plan.
 import { useState } from "react";
+import { useSiteFormat } from "@/components/site-format";
 import type { OpeningHours } from "@/db/schema";
+import { formatMoney, formatNumber } from "@/lib/format";
 import { DEFAULT_CONTRACT_HOURS, DEFAULT_RELIEF_FACTOR, staffingCost, weeklyOpenHours, type StaffingCost } from "@/lib/guarding/staffing-cost";
 
 interface Props {
@@ -11,9 +13,9 @@ interface Props {
   fewestPosts: number | null;
 }
 
-const money = (value: number) => value.toLocaleString("en", { maximumFractionDigits: 0 });
-
 export function StaffingPanel({ site, guaranteedPosts, fewestPosts }: Props) {
+  const format = useSiteFormat();
+  const money = (value: number) => formatMoney(format, value, { whole: true });
   const [contractHours, setContractHours] = useState(DEFAULT_CONTRACT_HOURS);
   const [reliefFactor, setReliefFactor] = useState(DEFAULT_RELIEF_FACTOR);
   const [hourlyRate, setHourlyRate] = useState(site.hourly_rate);
@@ -43,7 +45,7 @@ export function StaffingPanel({ site, guaranteedPosts, fewestPosts }: Props) {
         Staffing cost
       </h2>
       <p className="text-sm text-stone-700">
-        {site.name} is open {openHours} hours in a typical week (weekly pattern; dated exceptions aside).
+        {site.name} is open {formatNumber(format, openHours, 2)} hours in a typical week (weekly pattern; dated exceptions aside).
       </p>
       <table className="data-table">
         <thead>
@@ -60,8 +62,8 @@ export function StaffingPanel({ site, guaranteedPosts, fewestPosts }: Props) {
               <th scope="row" className="font-normal">
                 {label}
               </th>
-              <td>{c ? c.postHoursPerWeek : "–"}</td>
-              <td>{c ? c.fte.toFixed(2) : "–"}</td>
+              <td>{c ? formatNumber(format, c.postHoursPerWeek, 2) : "–"}</td>
+              <td>{c ? formatNumber(format, c.fte, 2) : "–"}</td>
               <td>{c ? money(c.costPerWeek) : "–"}</td>
             </tr>
           ))}
