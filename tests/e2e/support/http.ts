@@ -29,7 +29,8 @@ export interface Caller {
   request(path: string, init?: { method?: string; json?: unknown; body?: string; headers?: Record<string, string>; signal?: AbortSignal }): Promise<Response>;
 }
 
-export function caller(): Caller {
+/** A cookie-jar client of the app under test, or of another copy of the app at `base`. */
+export function caller(base?: string): Caller {
   const jar = new CookieJar();
   return {
     jar,
@@ -42,7 +43,7 @@ export function caller(): Caller {
         headers["content-type"] = "application/json";
         body = JSON.stringify(init.json);
       }
-      const response = await fetch(baseUrl() + path, { method: init.method ?? "GET", headers, body, redirect: "manual", signal: init.signal });
+      const response = await fetch((base ?? baseUrl()) + path, { method: init.method ?? "GET", headers, body, redirect: "manual", signal: init.signal });
       jar.store(response);
       return response;
     },
@@ -50,8 +51,8 @@ export function caller(): Caller {
 }
 
 /** A caller signed in with e-mail and password; the answer of the credentials callback is returned too. */
-export async function signedIn(email: string, password: string): Promise<{ who: Caller; status: number }> {
-  const who = caller();
+export async function signedIn(email: string, password: string, base?: string): Promise<{ who: Caller; status: number }> {
+  const who = caller(base);
   const csrf = (await (await who.request("/api/auth/csrf")).json()) as { csrfToken: string };
   const form = new URLSearchParams({ csrfToken: csrf.csrfToken, email, password, json: "true" });
   const response = await who.request("/api/auth/callback/credentials", {
