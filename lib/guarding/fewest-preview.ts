@@ -49,7 +49,10 @@ export function readPreviewRequest(input: unknown): PreviewRequest {
   if (!parsed.success) {
     const issue = parsed.error.issues[0];
     const field = issue.path.length ? issue.path.map(String).join(".") : "(body)";
-    return { ok: false, answer: problem("invalid-input", `Invalid input: ${field}: ${issue.message}`, { field }) };
+    const message = issue.path.length
+      ? `Invalid input: ${field}: ${issue.message}`
+      : "Invalid input: send the room as GeoJSON (a Polygon, or a Feature with one), coordinates in metres, optionally inside { room, sightRange, pinned, forbidden, doubleCover, timeLimit }";
+    return { ok: false, answer: problem("invalid-input", message, { field }) };
   }
   const body = parsed.data;
   const geojson = "room" in body && body.room ? body.room : body;
