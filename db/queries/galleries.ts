@@ -327,3 +327,8 @@ export async function roomVersion(db: Db, roomId: number, version: number): Prom
     saved_by: r.user_id != null && r.user_name != null ? { id: r.user_id, name: r.user_name } : null,
   };
 }
+
+/** The rooms of a floor with their versions, for matching uploaded rooms by name. */
+export async function roomsOfFloorByName(db: Db, floorId: number) {
+  return db.selectFrom("rooms").select(["id", "name", "version"]).where("floor_id", "=", floorId).orderBy("position").execute();
+}

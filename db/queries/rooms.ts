@@ -1,6 +1,6 @@
 // Rooms as the room page and its API read and write them: the walls with the site's opening hours
 // and the exhibitions the room is part of, and the optimistic-concurrency save of new walls.
-import type { Kysely } from "kysely";
+import type { Kysely, Transaction } from "kysely";
 import { db as appDb } from "../index";
 import { toJson, type Database, type OpeningHours } from "../schema";
 import { setSaver } from "./galleries";
@@ -117,23 +117,32 @@ export async function saveRoomWalls(
   savedBy: number | null = null,
 ): Promise<RoomSave> {
   // One transaction, so the room_versions trigger sees who saved (setSaver) with the new walls.
-  return db.transaction().execute(async (trx) => {
-    await setSaver(trx, savedBy);
-    const updated = await trx
-      .updateTable("rooms")
-      .set((eb) => ({
-        ...(change.name !== undefined ? { name: change.name } : {}),
-        outline: toJson(change.outline),
-        obstacles: toJson(change.obstacles),
-        version: eb("version", "+", 1),
-        updated_at: new Date(),
-      }))
-      .where("id", "=", roomId)
-      .where("version", "=", expectedVersion)
-      .returning(["version", "updated_at"])
-      .executeTakeFirst();
-    if (updated) return { ok: true as const, version: updated.version, updated_at: updated.updated_at.toISOString() };
-    const current = await trx.selectFrom("rooms").select("version").where("id", "=", roomId).executeTakeFirst();
-    return current ? { ok: false as const, reason: "stale" as const, currentVersion: current.version } : { ok: false as const, reason: "not-found" as const };
-  });
+  return db.transaction().execute((trx) => writeRoomWalls(trx, roomId, change, expectedVersion, savedBy));
+}
+
+/** saveRoomWalls inside a transaction the caller holds (several rooms saved all or nothing). */
+export async function writeRoomWalls(
+  trx: Transaction<Database>,
+  roomId: number,
+  change: { name?: string; outline: Ring; obstacles: Ring[] },
+  expectedVersion: number,
+  savedBy: number | null = null,
+): Promise<RoomSave> {
+  await setSaver(trx, savedBy);
+  const updated = await trx
+    .updateTable("rooms")
+    .set((eb) => ({
+      ...(change.name !== undefined ? { name: change.name } : {}),
+      outline: toJson(change.outline),
+      obstacles: toJson(change.obstacles),
+      version: eb("version", "+", 1),
+      updated_at: new Date(),
+    }))
+    .where("id", "=", roomId)
+    .where("version", "=", expectedVersion)
+    .returning(["version", "updated_at"])
+    .executeTakeFirst();
+  if (updated) return { ok: true as const, version: updated.version, updated_at: updated.updated_at.toISOString() };
+  const current = await trx.selectFrom("rooms").select("version").where("id", "=", roomId).executeTakeFirst();
+  return current ? { ok: false as const, reason: "stale" as const, currentVersion: current.version } : { ok: false as const, reason: "not-found" as const };
 }

@@ -32,6 +32,7 @@ export const ROUTE_MATRIX: Readonly<Record<string, RouteAccess>> = {
   "PATCH /api/floors/[floorId]": "rooms:edit",
   "DELETE /api/floors/[floorId]": "rooms:edit",
   "PUT /api/floors/[floorId]/room-order": "rooms:edit",
+  "POST /api/floors/[floorId]/rooms-import": "rooms:edit",
   "POST /api/rooms": "rooms:edit",
   "GET /api/rooms/[roomId]": "galleries:view",
   "PUT /api/rooms/[roomId]": "rooms:edit",

@@ -11,6 +11,7 @@ import { apiFetch, ApiRequestError } from "@/lib/api/client";
 import { floorCreateSchema, renameSchema, roomCreateSchema, siteCreateSchema, type FloorCreateInput, type RoomCreateInput, type SiteCreateInput } from "@/lib/api/galleries";
 import type { GalleryFloor, GalleryRoom, GallerySite } from "@/db/queries/galleries";
 import { RoomOutline } from "@/components/room-outline";
+import { RoomsUpload } from "./rooms-upload";
 
 type Feedback = { kind: "ok" | "error"; text: string } | null;
 
@@ -135,6 +136,7 @@ function FloorSection({ floor, editable, siblings, index, siteId }: { floor: Gal
         {floor.rooms.length === 0 && <li>No rooms on this floor.</li>}
       </ul>
       {editable && <NewRoomForm floorId={floor.id} floorName={floor.name} />}
+      {editable && <RoomsUpload floorId={floor.id} floorName={floor.name} />}
     </section>
   );
 }
