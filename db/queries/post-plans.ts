@@ -232,3 +232,68 @@ export async function approvedPostsForSite(siteId: number, onDate: string, db: K
 
 export type { PostPlanOptions, Ring };
 
+
+/** Where an exhibition room's approval stands: the latest approved plan and whether the walls moved since. */
+export interface ApprovalState {
+  exhibitionId: number;
+  exhibitionName: string;
+  roomId: number;
+  roomName: string;
+  roomVersion: number;
+  /** The latest approved plan for the exhibition and room, or null when none is approved. */
+  planId: number | null;
+  planRoomVersion: number | null;
+  posts: number | null;
+  /** Approved for walls the room no longer has: the roster still staffs the old posts. */
+  stale: boolean;
+}
+
+/** Every room of the site's exhibitions running on `onDate` (or the given ones), with its approval. */
+export async function approvalStates(db: Kysely<Database>, filter: { siteId?: number; onDate?: string; exhibitionIds?: number[]; roomId?: number }): Promise<ApprovalState[]> {
+  let query = db
+    .selectFrom("exhibition_rooms")
+    .innerJoin("exhibitions", "exhibitions.id", "exhibition_rooms.exhibition_id")
+    .innerJoin("rooms", "rooms.id", "exhibition_rooms.room_id")
+    .leftJoin(
+      (eb) =>
+        eb
+          .selectFrom("post_plans")
+          .select(["post_plans.id", "post_plans.room_id", "post_plans.exhibition_id", "post_plans.room_version", "post_plans.posts"])
+          .distinctOn(["post_plans.exhibition_id", "post_plans.room_id"])
+          .where("post_plans.status", "=", "approved")
+          .orderBy("post_plans.exhibition_id")
+          .orderBy("post_plans.room_id")
+          .orderBy("post_plans.approved_at", "desc")
+          .orderBy("post_plans.id", "desc")
+          .as("approved"),
+      (join) => join.onRef("approved.exhibition_id", "=", "exhibition_rooms.exhibition_id").onRef("approved.room_id", "=", "exhibition_rooms.room_id"),
+    )
+    .select([
+      "exhibitions.id as exhibition_id",
+      "exhibitions.name as exhibition_name",
+      "rooms.id as room_id",
+      "rooms.name as room_name",
+      "rooms.version as room_version",
+      "approved.id as plan_id",
+      "approved.room_version as plan_room_version",
+      "approved.posts as plan_posts",
+    ])
+    .orderBy("exhibitions.starts_on")
+    .orderBy("rooms.name");
+  if (filter.siteId !== undefined) query = query.where("exhibitions.site_id", "=", filter.siteId);
+  if (filter.onDate !== undefined) query = query.where("exhibitions.starts_on", "<=", filter.onDate).where("exhibitions.ends_on", ">=", filter.onDate);
+  if (filter.exhibitionIds !== undefined) query = filter.exhibitionIds.length ? query.where("exhibitions.id", "in", filter.exhibitionIds) : query.where((eb) => eb.val(false));
+  if (filter.roomId !== undefined) query = query.where("rooms.id", "=", filter.roomId);
+  const rows = await query.execute();
+  return rows.map((row) => ({
+    exhibitionId: row.exhibition_id,
+    exhibitionName: row.exhibition_name,
+    roomId: row.room_id,
+    roomName: row.room_name,
+    roomVersion: row.room_version,
+    planId: row.plan_id ?? null,
+    planRoomVersion: row.plan_room_version ?? null,
+    posts: row.plan_posts ? (row.plan_posts as Point[]).length : null,
+    stale: row.plan_id != null && row.plan_room_version !== row.room_version,
+  }));
+}

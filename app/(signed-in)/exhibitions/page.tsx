@@ -107,7 +107,14 @@ function PlanCell({ roomId, plans }: { roomId: number; plans: Awaited<ReturnType
   return (
     <Link href={`/galleries/${roomId}`}>
       {approved ? `${approved.posts.length} posts, approved` : "none approved"}
-      {approved && approved.room_version !== approved.current_room_version ? " (walls changed since)" : ""}
+      {approved && approved.room_version !== approved.current_room_version ? (
+        <>
+          {" "}
+          <span className="tag-high">approval stale</span> the walls changed since; compute and approve a new plan
+        </>
+      ) : (
+        ""
+      )}
       {proposed > 0 ? `; ${proposed} proposed` : ""}
     </Link>
   );

@@ -1,7 +1,10 @@
 import type { Metadata } from "next";
+import Link from "next/link";
 import { db } from "@/db";
 import type { Weekday } from "@/db/schema";
 import { rostersOfSite, timeOffOfSite } from "@/db/queries/rosters";
+import { approvalStates } from "@/db/queries/post-plans";
+import { staleApprovalText } from "@/lib/galleries/approval";
 import { rosterWeeks } from "@/lib/rosters/weeks";
 import { requirePageUser } from "@/lib/auth/session";
 import { addLocalDays, weekdayIndex } from "@/lib/scheduling/time";
@@ -46,7 +49,7 @@ export default async function StaffingPage({ searchParams }: { searchParams: Pro
   const asked = params.week;
   const week = typeof asked === "string" && isMonday(asked) ? asked : comingMonday(site.time_zone, siteDay(site).date);
   const askedRoster = typeof params.roster === "string" && /^\d{1,9}$/.test(params.roster) ? Number(params.roster) : null;
-  const [capacity, rosters, timeOff] = await Promise.all([
+  const [capacity, rosters, timeOff, approvals] = await Promise.all([
     db
       .selectFrom("guards")
       .select((eb) => [eb.fn.countAll<string>().as("guards"), eb.fn.sum<number>("contract_hours").as("hours")])
@@ -54,7 +57,9 @@ export default async function StaffingPage({ searchParams }: { searchParams: Pro
       .executeTakeFirstOrThrow(),
     rostersOfSite(db, site.id),
     timeOffOfSite(db, site.id),
+    approvalStates(db, { siteId: site.id, onDate: siteDay(site).date }),
   ]);
+  const stale = approvals.filter((a) => a.stale);
   const weeks = rosterWeeks(rosters);
   const weekly = site.opening_hours.weekly;
   const openHours = WEEK.reduce((sum, { day }) => sum + spanHours(weekly[day]), 0);
@@ -67,6 +72,18 @@ export default async function StaffingPage({ searchParams }: { searchParams: Pro
         <h1>Staffing</h1>
         <p className="text-stone-700">Opening hours decide how many hours each post is staffed; contracts decide who can staff them.</p>
       </div>
+      {stale.length > 0 && (
+        <section aria-labelledby="stale-approvals" className="card border-l-4 border-alert-600" data-testid="stale-approvals">
+          <h2 id="stale-approvals">Approvals out of date</h2>
+          <ul className="mt-2 space-y-1 text-sm">
+            {stale.map((a) => (
+              <li key={`${a.exhibitionId}-${a.roomId}`}>
+                <span className="tag-high">approval stale</span> <Link href={`/galleries/${a.roomId}`}>{a.roomName}</Link>: {staleApprovalText(a).slice(a.roomName.length + 2)}
+              </li>
+            ))}
+          </ul>
+        </section>
+      )}
       <RosterWorkbench key={`${week}-${askedRoster ?? ""}`} initialWeek={week} initialRosterId={askedRoster} />
       <section aria-labelledby="time-off" className="card">
         <h2 id="time-off">Time off</h2>

@@ -17,6 +17,7 @@ import { addRectangleObstacle, deleteVertex, moveVertex, rectangle, removeObstac
 import type { FewestPreview, RoomWalls } from "@/lib/api/plan-input";
 import { PlanFigures } from "./plan-figures";
 import { StaffingPanel } from "./staffing-panel";
+import { CostOfChange } from "./cost-of-change";
 import { PostPlansPanel } from "./post-plans-panel";
 import { RoomVersions } from "./room-versions";
 
@@ -77,6 +78,12 @@ export function RoomWorkspace({ initial, canEdit, canApprove, exhibitionId, caut
   const [fewestState, setFewestState] = useState<"idle" | "computing" | "unavailable" | "failed" | "stopped">("idle");
   const [fewestMessage, setFewestMessage] = useState<string | null>(null);
   const fewestCurrent = fewest && fewest.key === previewKey ? fewest.plan : null;
+  // The plan rosters staff now: the latest approved one for the page's exhibition.
+  const approvedPlan = exhibition
+    ? data.plans
+        .filter((p) => p.exhibition_id === exhibition.id && p.status === "approved")
+        .sort((a, b) => (b.approved_at ?? "").localeCompare(a.approved_at ?? "") || b.id - a.id)[0] ?? null
+    : null;
   // A stored plan chosen from the list is drawn instead of the live one until the walls change.
   const [shownPlan, setShownPlan] = useState<PostPlanView | null>(null);
 
@@ -397,6 +404,17 @@ export function RoomWorkspace({ initial, canEdit, canApprove, exhibitionId, caut
         {cautions}
         <PlanFigures answer={answer} sightOf={sightOf} fewest={fewestCurrent} fewestState={fewestState} fewestMessage={fewestMessage} colourName={answer?.ok ? COLOUR_NAMES[answer.guaranteed.colour] : null} />
         <StaffingPanel site={detail.site} guaranteedPosts={answer?.ok ? answer.guaranteed.posts.length : null} fewestPosts={fewestCurrent ? fewestCurrent.posts.length : null} />
+        {exhibition && (
+          <CostOfChange
+            site={detail.site}
+            roomName={detail.name}
+            roomVersion={detail.version}
+            exhibitionName={exhibition.name}
+            approved={approvedPlan ? { id: approvedPlan.id, posts: approvedPlan.posts.length, roomVersion: approvedPlan.room_version } : null}
+            livePosts={fewestCurrent ? fewestCurrent.posts.length : answer?.ok ? answer.guaranteed.posts.length : null}
+            liveKind={fewestCurrent ? "fewest plan" : "guaranteed plan"}
+          />
+        )}
         {canApprove && exhibition && (
           <PostPlansPanel
             roomId={detail.id}
