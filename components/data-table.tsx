@@ -24,10 +24,12 @@ export interface DataTableProps<T> {
   /** Free text matched against every column's text. */
   search?: string;
   empty: string;
+  /** Said when there are no rows at all (rather than none matching the filters). */
+  none?: string;
   testId?: string;
 }
 
-export function DataTable<T>({ data, columns, caption, initialSorting = [], columnFilters = [], search = "", empty, testId }: DataTableProps<T>) {
+export function DataTable<T>({ data, columns, caption, initialSorting = [], columnFilters = [], search = "", empty, none, testId }: DataTableProps<T>) {
   const [sorting, setSorting] = useState<SortingState>(initialSorting);
   const table = useReactTable({
     data,
@@ -70,7 +72,7 @@ export function DataTable<T>({ data, columns, caption, initialSorting = [], colu
           {rows.length === 0 ? (
             <tr>
               <td colSpan={columns.length} className="text-stone-700">
-                {empty}
+                {data.length === 0 && none ? none : empty}
               </td>
             </tr>
           ) : (

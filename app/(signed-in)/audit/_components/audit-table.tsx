@@ -39,7 +39,7 @@ function Changes({ changes }: { changes: Record<string, unknown> }) {
   const format = useSiteFormat();
   const entries = Object.entries(changes);
   if (entries.length === 0) return <span className="text-stone-600">—</span>;
-  return (
+  const list = (
     <ul className="space-y-0.5 text-sm">
       {entries.map(([field, value]) => {
         const pair = value && typeof value === "object" && !Array.isArray(value) && ("from" in value || "to" in value) ? (value as { from?: unknown; to?: unknown }) : null;
@@ -50,6 +50,14 @@ function Changes({ changes }: { changes: Record<string, unknown> }) {
         );
       })}
     </ul>
+  );
+  // Long lists stay folded so the trail reads row by row, on a phone too.
+  if (entries.length <= 2) return list;
+  return (
+    <details>
+      <summary className="cursor-pointer text-sm font-semibold">{entries.length} fields</summary>
+      {list}
+    </details>
   );
 }
 
@@ -96,7 +104,7 @@ export function AuditTable({ rows }: { rows: AuditRowView[] }) {
           <input id="audit-search" type="search" className="field-input mt-0" placeholder="room, guard, week, note…" value={search} onChange={(e) => setSearch(e.target.value)} />
         </div>
       </div>
-      <DataTable data={rows} columns={columns} caption="Changes, newest first" initialSorting={[{ id: "at", desc: true }]} columnFilters={filters} search={search} empty="No changes match." testId="audit" />
+      <DataTable data={rows} columns={columns} caption="Changes, newest first" initialSorting={[{ id: "at", desc: true }]} columnFilters={filters} search={search} empty="No changes match." none="No changes recorded yet." testId="audit" />
     </div>
   );
 }

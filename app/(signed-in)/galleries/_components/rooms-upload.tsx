@@ -83,7 +83,7 @@ export function RoomsUpload({ floorId, floorName }: { floorId: number; floorName
       <label htmlFor={inputId} className="block text-sm font-semibold">
         Upload rooms to {floorName} <span className="font-normal text-stone-600">(GeoJSON FeatureCollection, one Feature per room with a name; at most 5 MB)</span>
       </label>
-      <input id={inputId} type="file" accept=".geojson,.json,application/geo+json,application/json" className="block text-sm" disabled={busy} onChange={(e) => void choose(e.target.files?.[0])} />
+      <input id={inputId} type="file" accept=".geojson,.json,application/geo+json,application/json" className="block text-sm file:mr-3 file:min-h-[2.75rem] file:cursor-pointer file:rounded-md file:border file:border-ink-700 file:bg-white file:px-3 file:font-semibold file:text-ink-800 hover:file:bg-ink-50" disabled={busy} onChange={(e) => void choose(e.target.files?.[0])} />
       {preview && (
         <div className="space-y-2">
           <div className="overflow-x-auto">

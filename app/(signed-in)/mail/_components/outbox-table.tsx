@@ -95,6 +95,7 @@ export function OutboxTable({ rows }: { rows: OutboxRow[] }) {
         columnFilters={filters}
         search={search}
         empty="No messages match."
+        none="No mail sent yet."
         testId="outbox"
       />
     </div>
