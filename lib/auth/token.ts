@@ -13,11 +13,19 @@ export function sessionCookieName(): string {
   return `${secureCookies() ? "__Secure-" : ""}next-auth.session-token`;
 }
 
+// One decryption per request: the role check and the renewal read the same cookie.
+const decoded = new WeakMap<NextRequest, Promise<JWT | null>>();
+
 /** The signed-in token, or null when signed out, expired (idle) or past the absolute limit. */
-export async function sessionToken(request: NextRequest): Promise<JWT | null> {
-  const token = await getToken({ req: request, secret: process.env.NEXTAUTH_SECRET });
-  if (!token || typeof token.uid !== "number" || !withinAbsoluteLimit(token)) return null;
-  return token;
+export function sessionToken(request: NextRequest): Promise<JWT | null> {
+  let found = decoded.get(request);
+  if (!found) {
+    found = getToken({ req: request, secret: process.env.NEXTAUTH_SECRET }).then((token) =>
+      !token || typeof token.uid !== "number" || !withinAbsoluteLimit(token) ? null : token,
+    );
+    decoded.set(request, found);
+  }
+  return found;
 }
 
 /**
