@@ -332,3 +332,16 @@ export async function roomVersion(db: Db, roomId: number, version: number): Prom
 export async function roomsOfFloorByName(db: Db, floorId: number) {
   return db.selectFrom("rooms").select(["id", "name", "version"]).where("floor_id", "=", floorId).orderBy("position").execute();
 }
+
+/** The floors (id, name, level) that hold any of these rooms, lowest level first. */
+export async function floorsOfRooms(db: Db, roomIds: number[]) {
+  if (roomIds.length === 0) return [];
+  return db
+    .selectFrom("rooms")
+    .innerJoin("floors", "floors.id", "rooms.floor_id")
+    .select(["floors.id", "floors.name", "floors.level"])
+    .distinct()
+    .where("rooms.id", "in", roomIds)
+    .orderBy("floors.level")
+    .execute();
+}

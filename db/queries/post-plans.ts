@@ -297,3 +297,18 @@ export async function approvalStates(db: Kysely<Database>, filter: { siteId?: nu
     stale: row.plan_id != null && row.plan_room_version !== row.room_version,
   }));
 }
+
+/** Every room of a floor with the approved posts of the exhibition running on `onDate` (if any). */
+export async function floorRoomsWithApprovedPosts(db: Kysely<Database>, floorId: number, onDate: string) {
+  const rooms = await db.selectFrom("rooms").select(["id", "name", "outline", "obstacles", "version"]).where("floor_id", "=", floorId).orderBy("position").orderBy("id").execute();
+  if (rooms.length === 0) return [];
+  const floor = await db.selectFrom("floors").select("site_id").where("id", "=", floorId).executeTakeFirstOrThrow();
+  const states = await approvalStates(db, { siteId: floor.site_id, onDate });
+  const planIds = states.filter((s) => s.planId !== null && rooms.some((r) => r.id === s.roomId)).map((s) => s.planId!);
+  const plans = planIds.length ? await db.selectFrom("post_plans").select(["id", "posts"]).where("id", "in", planIds).execute() : [];
+  return rooms.map((room) => {
+    const state = states.find((s) => s.roomId === room.id && s.planId !== null) ?? states.find((s) => s.roomId === room.id) ?? null;
+    const plan = state?.planId ? plans.find((p) => p.id === state.planId) : undefined;
+    return { ...room, exhibition: state?.exhibitionName ?? null, posts: plan ? (plan.posts as Point[]) : null, stale: state?.stale ?? false };
+  });
+}

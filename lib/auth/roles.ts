@@ -85,9 +85,11 @@ export function navigationFor(role: Role): NavEntry[] {
 }
 
 // Which permission a page path needs; the proxy and pages use the same table.
-const PAGE_PERMISSIONS: ReadonlyArray<[prefix: string, permission: Permission]> = NAV.map(
-  (entry) => [entry.href, entry.permission],
-);
+const PAGE_PERMISSIONS: ReadonlyArray<[prefix: string, permission: Permission]> = [
+  ...NAV.map((entry): [string, Permission] => [entry.href, entry.permission]),
+  // Pages reached from another page, not from the navigation.
+  ["/my-floors", "shifts:own"],
+];
 
 /** The permission a page path needs, or null when any signed-in person may open it. */
 export function permissionForPath(pathname: string): Permission | null {

@@ -33,6 +33,7 @@ export const ROUTE_MATRIX: Readonly<Record<string, RouteAccess>> = {
   "DELETE /api/floors/[floorId]": "rooms:edit",
   "PUT /api/floors/[floorId]/room-order": "rooms:edit",
   "POST /api/floors/[floorId]/rooms-import": "rooms:edit",
+  "GET /api/floors/[floorId]/map": "galleries:view",
   "POST /api/rooms": "rooms:edit",
   "GET /api/rooms/[roomId]": "galleries:view",
   "PUT /api/rooms/[roomId]": "rooms:edit",

@@ -84,6 +84,7 @@ describe("roles: who may do what", () => {
   it("maps page paths, including nested ones, to the permission they need", () => {
     expect(permissionForPath("/people")).toBe("people:view");
     expect(permissionForPath("/mail/abc")).toBe("mail:read");
+    expect(permissionForPath("/my-floors/3")).toBe("shifts:own");
     expect(permissionForPath("/peoplex")).toBeNull();
     expect(permissionForPath("/")).toBeNull();
   });

@@ -1,4 +1,6 @@
 import type { Metadata } from "next";
+import Link from "next/link";
+import { ownPostsAndFloors } from "@/lib/galleries/own-posts";
 import { startOfWeek } from "date-fns";
 import { db } from "@/db";
 import { colleaguesOnFloor, currentShiftsOfGuard, guardByUserId, timeOffOfGuard } from "@/db/queries/rosters";
@@ -28,6 +30,8 @@ export default async function MyShiftsPage() {
   const shown = siteFormat(site);
   // The other guards on the same floor during each shift, for the calendar's shift details.
   const colleagues = guard ? await colleaguesOnFloor(db, guard.id, shifts.map((s) => s.id)) : [];
+  // Floors where the guard stands now or soon: their maps, with the guard's own posts marked.
+  const own = guard ? await ownPostsAndFloors(db, guard.id) : { posts: [], floors: [] };
 
   return (
     <div className="space-y-6">
@@ -63,6 +67,19 @@ export default async function MyShiftsPage() {
         <h2 id="week-view" className="mb-3">Week view</h2>
         <ShiftCalendar timeZone={timeZone} initialDate={openingDate(shifts, timeZone)} shifts={calendarShifts(shifts, rooms, colleagues)} />
       </section>
+      {own.floors.length > 0 && (
+        <section aria-labelledby="floor-maps" className="card space-y-2">
+          <h2 id="floor-maps">Floor maps</h2>
+          <p className="text-sm text-stone-700">The floors of your coming shifts, with your posts marked; print one for the briefing.</p>
+          <ul className="flex flex-wrap gap-2">
+            {own.floors.map((floor) => (
+              <li key={floor.id}>
+                <Link className="button-quiet" href={`/my-floors/${floor.id}`}>{floor.name}</Link>
+              </li>
+            ))}
+          </ul>
+        </section>
+      )}
       {guard && (
         <section aria-labelledby="feed" className="card space-y-2">
           <h2 id="feed">Calendar feed</h2>

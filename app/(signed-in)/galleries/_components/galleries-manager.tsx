@@ -84,6 +84,7 @@ function FloorSection({ floor, editable, siblings, index, siteId }: { floor: Gal
         <h3 id={`floor-${floor.id}`} className="text-lg">
           {floor.name} <span className="text-base font-normal text-stone-600">(level {floor.level})</span>
         </h3>
+        <Link href={`/galleries/floors/${floor.id}/map`} className="text-sm" aria-label={`Floor map of ${floor.name}`}>Floor map</Link>
         {editable && (
           <>
             <RenameControl what="floor" name={floor.name} url={`/api/floors/${floor.id}`} method="PATCH" />
