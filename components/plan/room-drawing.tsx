@@ -34,6 +34,8 @@ export interface RoomDrawingProps {
   onPin?: (p: Point) => void;
   onUnpin?: (index: number) => void;
   onRemoveForbidden?: (index: number) => void;
+  /** Corners dragged or added land on this grid, in metres (0.1 by default). */
+  snapStep?: number;
 }
 
 function path(ring: Ring): string {
@@ -75,6 +77,19 @@ export function RoomDrawing(props: RoomDrawingProps) {
   }
 
   const editing = mode === "edit";
+  const snapStep = props.snapStep ?? 0.1;
+  /** The pointer on the snapping grid. */
+  function snapped(event: { clientX: number; clientY: number }): Point {
+    const [x, y] = metres(event);
+    if (!(snapStep > 0)) return [x, y];
+    return [Math.round(x / snapStep) * snapStep, Math.round(y / snapStep) * snapStep];
+  }
+  // A metre grid (2 or 5 m on large rooms) and a scale bar of a round length.
+  const gridStep = size > 80 ? 5 : size > 30 ? 2 : 1;
+  const gridLines: { x1: number; y1: number; x2: number; y2: number }[] = [];
+  for (let gx = Math.ceil((minX - pad) / gridStep) * gridStep; gx <= maxX + pad; gx += gridStep) gridLines.push({ x1: gx, y1: -(maxY + pad), x2: gx, y2: -(minY - pad) });
+  for (let gy = Math.ceil((minY - pad) / gridStep) * gridStep; gy <= maxY + pad; gy += gridStep) gridLines.push({ x1: minX - pad, y1: -gy, x2: maxX + pad, y2: -gy });
+  const barLength = [1, 2, 5, 10, 20, 50, 100].find((l) => l >= size / 6) ?? 100;
 
   function onPointerDown(event: React.PointerEvent<SVGSVGElement>) {
     if (mode === "obstacle" || mode === "forbid") {
@@ -90,13 +105,13 @@ export function RoomDrawing(props: RoomDrawingProps) {
   }
 
   function onPointerMove(event: React.PointerEvent<SVGSVGElement>) {
-    if (drag) props.onRoomChange?.(moveVertex(room, drag, metres(event)), false);
+    if (drag) props.onRoomChange?.(moveVertex(room, drag, snapped(event)), false);
     else if (rubber) setRubber({ from: rubber.from, to: metres(event) });
   }
 
   function onPointerUp(event: React.PointerEvent<SVGSVGElement>) {
     if (drag) {
-      props.onRoomChange?.(moveVertex(room, drag, metres(event)), true);
+      props.onRoomChange?.(moveVertex(room, drag, snapped(event)), true);
       setDrag(null);
     } else if (rubber) {
       props.onRectangle?.(rubber.from, metres(event));
@@ -106,7 +121,7 @@ export function RoomDrawing(props: RoomDrawingProps) {
 
   function onDoubleClick(event: React.MouseEvent<SVGSVGElement>) {
     if (!editing) return;
-    const p = metres(event);
+    const p = snapped(event);
     const hit = nearestWall(room, p, unit * 1.5);
     if (hit) props.onRoomChange?.(insertVertex(room, hit.wall, hit.at), true);
   }
@@ -131,6 +146,18 @@ export function RoomDrawing(props: RoomDrawingProps) {
           <line x1="0" y1="0" x2="0" y2={unit} stroke="#b03a2e" strokeWidth={unit * 0.5} />
         </pattern>
       </defs>
+
+      <g data-testid="drawing-grid" aria-hidden="true">
+        {gridLines.map((l, i) => (
+          <line key={i} {...l} stroke="#d6d3d1" strokeWidth={unit * 0.08} />
+        ))}
+      </g>
+      <g data-testid="scale-bar" aria-hidden="true" transform={`translate(${minX - pad * 0.6} ${-(minY - pad * 0.45)})`}>
+        <rect x={0} y={-unit * 0.25} width={barLength} height={unit * 0.5} fill="#123b3a" />
+        <text x={0} y={-unit * 0.6} fontSize={unit * 1.4} fill="#123b3a">
+          {barLength} m
+        </text>
+      </g>
 
       {/* Floor: outline filled, obstacles cut out. */}
       <path d={rings.map(path).join(" ")} fillRule="evenodd" fill="#ffffff" stroke="none" />

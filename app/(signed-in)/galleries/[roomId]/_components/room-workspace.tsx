@@ -4,7 +4,7 @@
 // save, and for operations the post-plan conditions, proposals and approval.
 import { useQuery, useQueryClient } from "@tanstack/react-query";
 import { useRouter } from "next/navigation";
-import { useEffect, useMemo, useState } from "react";
+import { useEffect, useMemo, useRef, useState } from "react";
 import { ApiRequestError, apiFetch } from "@/lib/api/client";
 import type { RoomProblem } from "@/lib/geometry/room";
 import type { Point, Ring, Room } from "@/lib/geometry/types";
@@ -18,6 +18,8 @@ import type { FewestPreview, RoomWalls } from "@/lib/api/plan-input";
 import { PlanFigures } from "./plan-figures";
 import { StaffingPanel } from "./staffing-panel";
 import { CostOfChange } from "./cost-of-change";
+import { CornerPanel } from "./corner-panel";
+import { useEditHistory } from "@/components/plan/use-edit-history";
 import { PostPlansPanel } from "./post-plans-panel";
 import { RoomVersions } from "./room-versions";
 
@@ -56,6 +58,10 @@ export function RoomWorkspace({ initial, canEdit, canApprove, exhibitionId, caut
   const [draft, setDraft] = useState<Room | null>(null);
   const [baseVersion, setBaseVersion] = useState(detail.version);
   const room: Room = draft ?? { outline: detail.outline, obstacles: detail.obstacles };
+  const history = useEditHistory();
+  // The room as the last committed edit left it: a drag's moves are not steps of their own.
+  const committed = useRef<Room>(room);
+  if (draft === null) committed.current = room;
   const [mode, setMode] = useState<DrawingMode>("view");
   const [selectedVertex, setSelectedVertex] = useState<VertexRef | null>(null);
   const [selectedObstacle, setSelectedObstacle] = useState<number | null>(null);
@@ -64,6 +70,7 @@ export function RoomWorkspace({ initial, canEdit, canApprove, exhibitionId, caut
   const [importProblems, setImportProblems] = useState<string[]>([]);
   const [saving, setSaving] = useState(false);
   const [show, setShow] = useState({ triangles: true, guaranteed: true, sight: true });
+  const [snapStep, setSnapStep] = useState(0.1);
 
   // Post-plan conditions (operations).
   const exhibition: RoomExhibition | null = detail.exhibitions.find((e) => e.id === exhibitionId) ?? null;
@@ -147,6 +154,10 @@ export function RoomWorkspace({ initial, canEdit, canApprove, exhibitionId, caut
   }, [previewKey, valid]);
 
   function change(next: Room, commit = true) {
+    if (commit) {
+      history.record(committed.current);
+      committed.current = next;
+    }
     setDraft(next);
     setShownPlan(null);
     setNotice(null);
@@ -168,11 +179,28 @@ export function RoomWorkspace({ initial, canEdit, canApprove, exhibitionId, caut
     }
   }
 
+  function travel(direction: "undo" | "redo") {
+    const to = direction === "undo" ? history.undo(committed.current) : history.redo(committed.current);
+    if (!to) return;
+    committed.current = to;
+    setDraft(to);
+    setSelectedVertex(null);
+    setSelectedObstacle(null);
+    setShownPlan(null);
+  }
+
   useEffect(() => {
-    if (mode !== "edit") return;
+    if (!canEdit) return;
     const onKey = (event: KeyboardEvent) => {
       const target = event.target as HTMLElement | null;
       if (target && ["INPUT", "TEXTAREA", "SELECT"].includes(target.tagName)) return;
+      // Ctrl-Z / Ctrl-Shift-Z (Cmd on a Mac), and Ctrl-Y: undo and redo of wall edits.
+      if ((event.ctrlKey || event.metaKey) && (event.key === "z" || event.key === "Z" || event.key === "y")) {
+        event.preventDefault();
+        travel(event.key === "y" || event.shiftKey ? "redo" : "undo");
+        return;
+      }
+      if (mode !== "edit") return;
       if ((event.key === "Delete" || event.key === "Backspace") && (selectedVertex || selectedObstacle)) {
         event.preventDefault();
         deleteSelected();
@@ -216,6 +244,7 @@ export function RoomWorkspace({ initial, canEdit, canApprove, exhibitionId, caut
     const fresh = await queryClient.fetchQuery({ queryKey, queryFn: () => apiFetch<RoomData>(`/api/rooms/${detail.id}`), staleTime: 0 });
     setBaseVersion(fresh.room.version);
     setDraft(null);
+    history.clear();
     setNotice(null);
     setServerProblems([]);
   }
@@ -264,6 +293,27 @@ export function RoomWorkspace({ initial, canEdit, canApprove, exhibitionId, caut
               {m.label}
             </button>
           ))}
+          {canEdit && (
+            <>
+              <button type="button" className="button-quiet" disabled={!history.canUndo} onClick={() => travel("undo")} aria-keyshortcuts="Control+Z">
+                Undo
+              </button>
+              <button type="button" className="button-quiet" disabled={!history.canRedo} onClick={() => travel("redo")} aria-keyshortcuts="Control+Shift+Z">
+                Redo
+              </button>
+            </>
+          )}
+          {canEdit && mode === "edit" && (
+            <label className="inline-flex items-center gap-1 text-sm">
+              Snap to
+              <select className="field-input mt-0 w-auto" value={snapStep} onChange={(e) => setSnapStep(Number(e.target.value))}>
+                <option value={0.01}>1 cm</option>
+                <option value={0.1}>10 cm</option>
+                <option value={0.5}>50 cm</option>
+                <option value={1}>1 m</option>
+              </select>
+            </label>
+          )}
           {canEdit && mode === "edit" && (
             <button type="button" className="button-quiet" disabled={!selectedVertex && !selectedObstacle} onClick={deleteSelected}>
               {selectedObstacle ? "Remove obstacle" : "Delete vertex"}
@@ -293,6 +343,7 @@ export function RoomWorkspace({ initial, canEdit, canApprove, exhibitionId, caut
           selectedVertex={selectedVertex}
           selectedObstacle={selectedObstacle}
           show={show}
+          snapStep={snapStep}
           onRoomChange={(next, commit) => change(next, commit)}
           onSelectVertex={setSelectedVertex}
           onSelectObstacle={setSelectedObstacle}
@@ -310,6 +361,10 @@ export function RoomWorkspace({ initial, canEdit, canApprove, exhibitionId, caut
           onUnpin={(i) => setPinned(pinned.filter((_, k) => k !== i))}
           onRemoveForbidden={(i) => setForbidden(forbidden.filter((_, k) => k !== i))}
         />
+
+        {canEdit && mode === "edit" && selectedVertex && ringOf(room, selectedVertex.ring)[selectedVertex.index] && (
+          <CornerPanel room={room} vertex={selectedVertex} onMove={(ref, to) => change(moveVertex(room, ref, to))} />
+        )}
 
         <fieldset className="flex flex-wrap gap-4 text-sm">
           <legend className="sr-only">Layers</legend>
