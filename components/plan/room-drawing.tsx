@@ -9,7 +9,7 @@ import { formatPoint } from "@/lib/geometry/room";
 import type { PlanTriangle } from "./plan-messages";
 import { moveVertex, nearestWall, insertVertex, type VertexRef } from "./room-edits";
 
-export type DrawingMode = "view" | "edit" | "obstacle" | "pin" | "forbid";
+export type DrawingMode = "view" | "edit" | "obstacle" | "partition" | "pin" | "forbid";
 
 /** The three colours of the 3-colouring (ink, brass, stone): posts take one of them. */
 export const COLOUR_FILLS = ["#2f706c", "#c0963a", "#8f7d67"] as const;
@@ -31,6 +31,8 @@ export interface RoomDrawingProps {
   onSelectVertex?: (vertex: VertexRef | null) => void;
   onSelectObstacle?: (obstacle: number | null) => void;
   onRectangle?: (a: Point, b: Point) => void;
+  /** A partition wall drawn as a line (mode "partition"). */
+  onLine?: (a: Point, b: Point) => void;
   onPin?: (p: Point) => void;
   onUnpin?: (index: number) => void;
   onRemoveForbidden?: (index: number) => void;
@@ -92,8 +94,8 @@ export function RoomDrawing(props: RoomDrawingProps) {
   const barLength = [1, 2, 5, 10, 20, 50, 100].find((l) => l >= size / 6) ?? 100;
 
   function onPointerDown(event: React.PointerEvent<SVGSVGElement>) {
-    if (mode === "obstacle" || mode === "forbid") {
-      const p = metres(event);
+    if (mode === "obstacle" || mode === "forbid" || mode === "partition") {
+      const p = mode === "partition" ? snapped(event) : metres(event);
       setRubber({ from: p, to: p });
       (event.target as Element).setPointerCapture?.(event.pointerId);
     } else if (mode === "pin") {
@@ -106,13 +108,16 @@ export function RoomDrawing(props: RoomDrawingProps) {
 
   function onPointerMove(event: React.PointerEvent<SVGSVGElement>) {
     if (drag) props.onRoomChange?.(moveVertex(room, drag, snapped(event)), false);
-    else if (rubber) setRubber({ from: rubber.from, to: metres(event) });
+    else if (rubber) setRubber({ from: rubber.from, to: mode === "partition" ? snapped(event) : metres(event) });
   }
 
   function onPointerUp(event: React.PointerEvent<SVGSVGElement>) {
     if (drag) {
       props.onRoomChange?.(moveVertex(room, drag, snapped(event)), true);
       setDrag(null);
+    } else if (rubber && mode === "partition") {
+      props.onLine?.(rubber.from, snapped(event));
+      setRubber(null);
     } else if (rubber) {
       props.onRectangle?.(rubber.from, metres(event));
       setRubber(null);
@@ -295,7 +300,10 @@ export function RoomDrawing(props: RoomDrawingProps) {
           }),
         )}
 
-      {rubber && (
+      {rubber && mode === "partition" && (
+        <line x1={rubber.from[0]} y1={-rubber.from[1]} x2={rubber.to[0]} y2={-rubber.to[1]} stroke="#113836" strokeWidth={unit * 0.4} strokeDasharray={`${unit * 0.5} ${unit * 0.5}`} />
+      )}
+      {rubber && mode !== "partition" && (
         <path
           d={path([rubber.from, [rubber.to[0], rubber.from[1]], rubber.to, [rubber.from[0], rubber.to[1]]])}
           fill={mode === "forbid" ? "#f0c3bc" : "#d3c6b2"}

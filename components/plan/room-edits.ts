@@ -54,6 +54,27 @@ export function addRectangleObstacle(room: Room, a: Point, b: Point): Room | str
   return { outline: room.outline, obstacles: [...room.obstacles, ring] };
 }
 
+/**
+ * A partition wall drawn as a line from `a` to `b` with a thickness: the obstacle is the band of
+ * that width around the line (a rectangle along it), clockwise like the other obstacles.
+ */
+export function partitionWall(a: Point, b: Point, thickness: number): Ring | string {
+  const length = Math.hypot(b[0] - a[0], b[1] - a[1]);
+  if (length < 0.1) return "draw the partition at least 10 cm long";
+  if (!(thickness >= 0.02 && thickness <= 2)) return "a partition is 2 cm to 2 m thick";
+  const [nx, ny] = [(-(b[1] - a[1]) / length) * (thickness / 2), ((b[0] - a[0]) / length) * (thickness / 2)];
+  const ring: Ring = [snap([a[0] - nx, a[1] - ny]), snap([a[0] + nx, a[1] + ny]), snap([b[0] + nx, b[1] + ny]), snap([b[0] - nx, b[1] - ny])];
+  // Clockwise: the area by the shoelace formula is negative.
+  const area = ring.reduce((sum, [x, y], i) => sum + x * ring[(i + 1) % 4]![1] - ring[(i + 1) % 4]![0] * y, 0);
+  return area > 0 ? [...ring].reverse() : ring;
+}
+
+export function addPartition(room: Room, a: Point, b: Point, thickness: number): Room | string {
+  const ring = partitionWall(a, b, thickness);
+  if (typeof ring === "string") return ring;
+  return { outline: room.outline, obstacles: [...room.obstacles, ring] };
+}
+
 export function removeObstacle(room: Room, obstacle: number): Room {
   return { outline: room.outline, obstacles: room.obstacles.filter((_, i) => i !== obstacle - 1) };
 }

@@ -1,6 +1,7 @@
 // Drawing walls as curators draw them, in Chromium: the drawing has a metre grid and a scale bar;
 // a selected corner can be placed by typing its coordinates and its next wall by typing a length;
-// Undo and Redo (buttons and Ctrl-Z / Ctrl-Shift-Z) step through the edits; the typed walls save.
+// Undo and Redo (buttons and Ctrl-Z / Ctrl-Shift-Z) step through the edits; a partition drawn as a
+// line becomes an obstacle of its thickness; the walls save.
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import type { Browser, Locator } from "playwright-core";
 import { DEMO_PASSWORD } from "@/db/seed/accounts";
@@ -69,9 +70,20 @@ describe("drawing tools", () => {
       await page.getByRole("button", { name: "Redo" }).click();
       await expect.poll(() => drawing.getAttribute("aria-label")).toBe("Drawing of the room, 14.0 by 8.0 metres");
 
+      // A partition wall across the middle: drawn as a line, kept as an obstacle 20 cm thick.
+      await page.getByRole("button", { name: "Add partition" }).click();
+      const box = (await drawing.boundingBox())!;
+      await page.mouse.move(box.x + box.width * 0.35, box.y + box.height * 0.5);
+      await page.mouse.down();
+      await page.mouse.move(box.x + box.width * 0.65, box.y + box.height * 0.5, { steps: 5 });
+      await page.mouse.up();
+
       await page.getByRole("button", { name: "Save room" }).click();
       await shown(page.getByText("Saved: the room is now at version 2."));
-      const saved = await db.selectFrom("rooms").select("outline").where("id", "=", roomId).executeTakeFirstOrThrow();
+      const saved = await db.selectFrom("rooms").select(["outline", "obstacles"]).where("id", "=", roomId).executeTakeFirstOrThrow();
+      expect(saved.obstacles).toHaveLength(1);
+      const ys = saved.obstacles[0]!.map((p) => p[1]);
+      expect(Math.max(...ys) - Math.min(...ys)).toBeCloseTo(0.2, 2);
       const xs = saved.outline.map((p) => p[0]);
       expect(Math.max(...xs) - Math.min(...xs)).toBeCloseTo(14, 6);
     } finally {

@@ -53,3 +53,30 @@ describe("room edits", () => {
     expect(validateRoom(outside)[0].code).toBe("obstacle-crossing");
   });
 });
+
+describe("partition walls", () => {
+  // Shoelace formula (Meister 1769, Gauss): signed area, negative for a clockwise ring.
+  const signedArea = (ring: [number, number][]) => ring.reduce((sum, [x, y], i) => sum + x * ring[(i + 1) % ring.length]![1] - ring[(i + 1) % ring.length]![0] * y, 0) / 2;
+
+  it("turns a line and a thickness into a clockwise band of length x thickness", async () => {
+    const { partitionWall } = await import("@/components/plan/room-edits");
+    const band = partitionWall([1, 2], [5, 2], 0.2) as [number, number][];
+    expect(band).toHaveLength(4);
+    expect(signedArea(band)).toBeCloseTo(-0.8, 9);
+    expect(Math.min(...band.map((p) => p[1]))).toBeCloseTo(1.9, 9);
+    expect(Math.max(...band.map((p) => p[1]))).toBeCloseTo(2.1, 9);
+    const slanted = partitionWall([0, 0], [3, 4], 0.5) as [number, number][];
+    expect(Math.abs(signedArea(slanted))).toBeCloseTo(5 * 0.5, 2);
+    expect(signedArea(slanted)).toBeLessThan(0);
+  });
+
+  it("refuses a line too short or a thickness out of range, and adds a good one as an obstacle", async () => {
+    const { addPartition, partitionWall } = await import("@/components/plan/room-edits");
+    expect(partitionWall([0, 0], [0.05, 0], 0.2)).toMatch(/at least 10 cm/);
+    expect(partitionWall([0, 0], [3, 0], 3)).toMatch(/2 cm to 2 m/);
+    const room = { outline: [[0, 0], [10, 0], [10, 8], [0, 8]] as [number, number][], obstacles: [] };
+    const next = addPartition(room, [2, 4], [8, 4], 0.2);
+    expect(typeof next).toBe("object");
+    expect((next as typeof room).obstacles).toHaveLength(1);
+  });
+});

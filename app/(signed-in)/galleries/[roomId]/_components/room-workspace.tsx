@@ -13,7 +13,7 @@ import type { RoomDetail, RoomExhibition } from "@/db/queries/rooms";
 import type { PostPlanView } from "@/db/queries/post-plans";
 import { RoomDrawing, COLOUR_NAMES, type DrawingMode } from "@/components/plan/room-drawing";
 import { usePlanWorker } from "@/components/plan/use-plan-worker";
-import { addRectangleObstacle, deleteVertex, moveVertex, rectangle, removeObstacle, ringOf, type VertexRef } from "@/components/plan/room-edits";
+import { addPartition, addRectangleObstacle, deleteVertex, moveVertex, rectangle, removeObstacle, ringOf, type VertexRef } from "@/components/plan/room-edits";
 import type { FewestPreview, RoomWalls } from "@/lib/api/plan-input";
 import { PlanFigures } from "./plan-figures";
 import { StaffingPanel } from "./staffing-panel";
@@ -71,6 +71,7 @@ export function RoomWorkspace({ initial, canEdit, canApprove, exhibitionId, caut
   const [saving, setSaving] = useState(false);
   const [show, setShow] = useState({ triangles: true, guaranteed: true, sight: true });
   const [snapStep, setSnapStep] = useState(0.1);
+  const [partitionThickness, setPartitionThickness] = useState("0.2");
 
   // Post-plan conditions (operations).
   const exhibition: RoomExhibition | null = detail.exhibitions.find((e) => e.id === exhibitionId) ?? null;
@@ -269,7 +270,8 @@ export function RoomWorkspace({ initial, canEdit, canApprove, exhibitionId, caut
     const list: { mode: DrawingMode; label: string; hint: string }[] = [{ mode: "view", label: "View", hint: "Look at the plan." }];
     if (canEdit) {
       list.push({ mode: "edit", label: "Edit walls", hint: "Drag a corner to move it; double-click a wall to add a corner; select a corner or obstacle and press Delete (or the button) to remove it; arrow keys nudge the selected corner by 10 cm." });
-      list.push({ mode: "obstacle", label: "Add obstacle", hint: "Drag a rectangle on the floor: a plinth, vitrine or partition." });
+      list.push({ mode: "obstacle", label: "Add obstacle", hint: "Drag a rectangle on the floor: a plinth or vitrine." });
+      list.push({ mode: "partition", label: "Add partition", hint: "Drag a line where a partition wall stands; it becomes an obstacle of the thickness set beside the tools." });
     }
     if (canApprove) {
       list.push({ mode: "pin", label: "Pin posts", hint: "Click the floor to pin a post where a guard must stand; click a pin to remove it." });
@@ -303,7 +305,13 @@ export function RoomWorkspace({ initial, canEdit, canApprove, exhibitionId, caut
               </button>
             </>
           )}
-          {canEdit && mode === "edit" && (
+          {canEdit && mode === "partition" && (
+            <label className="inline-flex items-center gap-1 text-sm">
+              Thickness (m)
+              <input className="field-input mt-0 w-20" inputMode="decimal" value={partitionThickness} onChange={(e) => setPartitionThickness(e.target.value)} />
+            </label>
+          )}
+          {canEdit && (mode === "edit" || mode === "partition") && (
             <label className="inline-flex items-center gap-1 text-sm">
               Snap to
               <select className="field-input mt-0 w-auto" value={snapStep} onChange={(e) => setSnapStep(Number(e.target.value))}>
@@ -356,6 +364,11 @@ export function RoomWorkspace({ initial, canEdit, canApprove, exhibitionId, caut
               const zone = rectangle(a, b);
               if (Math.abs(zone[2][0] - zone[0][0]) >= 0.05 && Math.abs(zone[2][1] - zone[0][1]) >= 0.05) setForbidden([...forbidden, zone]);
             }
+          }}
+          onLine={(a, b) => {
+            const next = addPartition(room, a, b, Number(partitionThickness.replace(",", ".")));
+            if (typeof next === "string") setNotice({ kind: "error", text: `No partition added: ${next}.` });
+            else change(next);
           }}
           onPin={(p) => setPinned([...pinned, [Math.round(p[0] * 100) / 100, Math.round(p[1] * 100) / 100]])}
           onUnpin={(i) => setPinned(pinned.filter((_, k) => k !== i))}
