@@ -6,6 +6,7 @@
 // 2. each piece is triangulated in linear time with a stack (Garey et al. 1978).
 // Ties in y are broken by x (isAbove), every sign comes from exact predicates, and collinear
 // vertices stay corners of strictly positive triangles: n + 2h - 2 triangles in all.
+// The sweep runs along y or x, whichever the rings turn back on less often (chooseSweepAxis).
 // All working arrays live in one reusable TriangulationWork: a call allocates only its result.
 import type { Point, Ring, Room, Triangulation } from "./types";
 import { orientXY } from "./predicates";
@@ -146,13 +147,48 @@ export function triangulate(room: Room): Triangulation {
   for (let r = 0, offset = outline.length; r < obstacles.length; offset += obstacles[r].length, r++) {
     loadRing(obstacles[r], offset, work, points);
   }
-  const diagonals = sweepDiagonals(work, n);
+  const turns = chooseSweepAxis(work, n);
   const expected = Math.max(0, n + 2 * obstacles.length - 2);
   const triangles: [number, number, number][] = new Array(expected);
-  const made = triangulatePieces(work, n, diagonals, triangles);
+  let made: number;
+  if (turns === 2 && obstacles.length === 0) {
+    // One top and one bottom: the outline is already monotone, a single piece with no sweep.
+    for (let v = 0; v < n; v++) work.corners[v] = v;
+    made = triangulatePiece(work, n, triangles, 0);
+  } else made = triangulatePieces(work, n, sweepDiagonals(work, n), triangles);
   // Only an invalid room makes another count; never hand out holes.
   if (made !== expected) triangles.length = made;
   return { points, triangles };
+}
+
+/**
+ * Sweep along whichever axis the rings turn back on less often (counted in O(n)): every turn
+ * (a corner both of whose neighbours lie on one side) is a start, end, split or merge corner, and
+ * split and merge corners are what cost searches and diagonals, so a comb whose teeth point up is
+ * swept left to right as one piece. Sweeping along x is the top-down sweep of the corners turned a
+ * quarter turn, (x, y) -> (-y, x): negation is exact, so every orientation sign stays the same.
+ * Returns the number of turns along the chosen axis.
+ */
+function chooseSweepAxis(work: TriangulationWork, n: number): number {
+  const { xs, ys, next, prev } = work;
+  let turnsY = 0;
+  let turnsX = 0;
+  for (let v = 0; v < n; v++) {
+    const p = prev[v];
+    const q = next[v];
+    if (before(xs, ys, p, v) === before(xs, ys, q, v)) turnsY++;
+    // The same order on the turned corners: x descending, ties by y descending.
+    const pRight = xs[p] > xs[v] || (xs[p] === xs[v] && ys[p] > ys[v]);
+    const qRight = xs[q] > xs[v] || (xs[q] === xs[v] && ys[q] > ys[v]);
+    if (pRight === qRight) turnsX++;
+  }
+  if (turnsX >= turnsY) return turnsY;
+  for (let v = 0; v < n; v++) {
+    const x = xs[v];
+    xs[v] = -ys[v];
+    ys[v] = x;
+  }
+  return turnsX;
 }
 
 // The geometry wallLeftOfCorner reads, set at the start of each sweep: one comparison function for

@@ -1,8 +1,12 @@
 // Triangulation speed: lib/geometry/triangulate.ts against earcut (the npm triangulation package,
 // named peer), measured in the same run on the same rings. Families: random star-shaped polygons,
 // the AGPLIB benchmark polygons (AGPLIB, Univ. of Campinas), and adversarial shapes (Chvátal combs,
-// spirals, orthogonal rooms with every metre marked). Reports median time per run, the ratio to
+// spirals, orthogonal rooms with every metre marked), plus seeded random families (alternating
+// stars, uneven combs, jittered orthogonal and near-convex rings). Reports median time per run, the ratio to
 // earcut, and the growth from n to 10n (n log n growth is about 11-13x per 10x; quadratic is 100x).
+import { readFileSync } from "node:fs";
+import { createRequire } from "node:module";
+import path from "node:path";
 import { setFlagsFromString } from "node:v8";
 import { runInNewContext } from "node:vm";
 import earcut, { flatten } from "earcut";
@@ -11,7 +15,15 @@ import { triangulate } from "../../lib/geometry/triangulate";
 import { comb } from "../../lib/guarding/comb";
 import type { Room } from "../../lib/geometry/types";
 import { seededRandom, type PlainRoom } from "../geometry/support/oracle";
-import { orthogonalRoom, spiralRoom, starRoom } from "../geometry/support/shapes";
+import {
+  alternatingStarRoom,
+  jitteredOrthogonalRoom,
+  nearConvexRoom,
+  orthogonalRoom,
+  spiralRoom,
+  starRoom,
+  unevenCombRoom,
+} from "../geometry/support/shapes";
 import { agplibPolygons, asRoom } from "../geometry/support/agplib";
 
 /** CPU milliseconds of this process (user + system): steadier than wall time on a busy machine. */
@@ -89,7 +101,7 @@ function validStar(n: number, seed: number): Room {
   }
 }
 
-function measure(c: Case): { ours: number; earcut: number; low: number; high: number; triangles: number; earcutTriangles: number } {
+function measure(c: Case, rounds = 11): { ours: number; earcut: number; low: number; high: number; triangles: number; earcutTriangles: number } {
   const inputs = c.rooms.map((room) => flatten([room.outline, ...room.obstacles]));
   // Warm up both (JIT) on the same input before timing.
   for (let i = 0; i < (c.n > 20_000 ? 1 : 5); i++) {
@@ -107,6 +119,7 @@ function measure(c: Case): { ours: number; earcut: number; low: number; high: nu
       earcutTriangles = 0;
       for (const d of inputs) earcutTriangles += earcut(d.vertices, d.holes, d.dimensions).length / 3;
     },
+    rounds,
   );
   return { ours: timing.ours, earcut: timing.theirs, low: timing.low, high: timing.high, triangles, earcutTriangles };
 }
@@ -178,6 +191,7 @@ export default async function triangulationBench(): Promise<string> {
       previous = m;
     }
   }
+  const randomRows = randomFamilies(sizes);
   return [
     `Median CPU milliseconds per triangulation on this machine (2 cores, shared with other work; CPU time, 11 alternating rounds of at least 20 ms each, a young-generation garbage collection before each round, not timed) (Node ${process.version}), ours (monotone pieces, exact predicates, validation not included) against earcut ${"3.x"} (which validates nothing) in the same run on the same rings. Ratio = median ours / median earcut (below 1: we are faster); ratio per round = lowest and highest ratio of one pair of rounds. Growth = time at n divided by time at n/10, ours / earcut. Triangles = ours / earcut's (earcut drops collinear corners, so it may make fewer).`,
     "",
@@ -185,5 +199,55 @@ export default async function triangulationBench(): Promise<string> {
     "| --- | ---: | ---: | ---: | ---: | ---: | ---: | ---: |",
     ...rows,
     ...agplibRows,
+    "",
+    `Random families (tests/geometry/support/shapes.ts): each seed draws its own proportions, so no row is one fixed shape. Per seed, ours and earcut ${EARCUT_VERSION} are timed in the same run on the same ring (7 alternating rounds); median ratio = median over the seeds of ours / earcut, worst = the highest seed's ratio and its seed.`,
+    "",
+    "| family | corners n (about) | seeds | ours ms, median | earcut ms, median | median ratio | worst seed ratio (seed) | peer, same run |",
+    "| --- | ---: | ---: | ---: | ---: | ---: | ---: | --- |",
+    ...randomRows,
   ].join("\n");
+}
+
+// earcut exports no package.json subpath: read it beside the resolved entry file.
+const EARCUT_VERSION = (
+  JSON.parse(readFileSync(path.join(path.dirname(createRequire(import.meta.url).resolve("earcut")), "..", "package.json"), "utf8")) as {
+    version: string;
+  }
+).version;
+
+/** Seeded generators: the seed fixes the room, so every run times the same rooms. */
+const randomFamilySpecs: { family: string; make: (random: () => number, n: number) => PlainRoom }[] = [
+  { family: "star, random alternating radii", make: alternatingStarRoom },
+  { family: "comb, random tooth widths, heights and valleys", make: (random, n) => unevenCombRoom(random, n) },
+  { family: "comb as above, turned 0.3-1.3 rad", make: (random, n) => unevenCombRoom(random, n, 0.3 + random()) },
+  { family: "orthogonal, corners jittered ±0.1 m", make: (random, n) => jitteredOrthogonalRoom(random, n) },
+  { family: "near-convex ring, radii jittered 0.5-3.5%", make: nearConvexRoom },
+];
+
+function randomFamilies(sizes: number[]): string[] {
+  const rows: string[] = [];
+  for (const { family, make } of randomFamilySpecs) {
+    for (const n of sizes) {
+      // Fewer seeds where earcut takes seconds per call.
+      const seeds = n >= 100_000 ? [1, 2, 3] : [1, 2, 3, 4, 5];
+      const per: { seed: number; ours: number; earcut: number; ratio: number; corners: number }[] = [];
+      for (const seed of seeds) {
+        let room: Room | null = null;
+        // A draw that is not a valid room (rare) moves on to the next stream of the same seed.
+        for (let attempt = 0; room === null; attempt++) {
+          const result = prepareRoom(make(seededRandom(1_000_003 * seed + 7919 * attempt + n), n), { maxVertices: 1e7 });
+          if (result.ok) room = result.room;
+        }
+        const m = measure({ family, n, rooms: [room] }, 7);
+        per.push({ seed, ours: m.ours, earcut: m.earcut, ratio: m.ours / m.earcut, corners: room.outline.length });
+        console.error(`triangulation bench: ${family} n=${room.outline.length} seed ${seed} ours ${fmt(m.ours)} ms, earcut ${fmt(m.earcut)} ms`);
+      }
+      const median = (xs: number[]) => [...xs].sort((a, b) => a - b)[Math.floor(xs.length / 2)];
+      const worst = per.reduce((a, b) => (b.ratio > a.ratio ? b : a));
+      rows.push(
+        `| ${family} | ${median(per.map((p) => p.corners)).toLocaleString("en")} | ${seeds.length} | ${fmt(median(per.map((p) => p.ours)))} | ${fmt(median(per.map((p) => p.earcut)))} | ${median(per.map((p) => p.ratio)).toFixed(2)} | ${worst.ratio.toFixed(2)} (${worst.seed}) | earcut ${EARCUT_VERSION} |`,
+      );
+    }
+  }
+  return rows;
 }

@@ -99,3 +99,64 @@ export function obstaclesInTriangles(points: P[], triangles: [number, number, nu
     return [a, b, c].map((p) => [g[0] + shrink * (p[0] - g[0]), g[1] + shrink * (p[1] - g[1])] as P);
   });
 }
+
+// Families with random variation for the benchmark and its unit test: each call draws its own
+// proportions from `random`, so seeds give different rooms of one kind.
+
+/** A star-shaped room whose corners alternate between an outer and an inner radius, both drawn at random. */
+export function alternatingStarRoom(random: () => number, n: number): PlainRoom {
+  const m = 2 * Math.max(2, Math.round(n / 2));
+  const depth = 0.05 + 0.85 * random();
+  const outline: P[] = [];
+  for (let i = 0; i < m; i++) {
+    const a = (2 * Math.PI * (i + 0.8 * (random() - 0.5))) / m;
+    const r = i % 2 === 0 ? 100 * (1 - 0.05 * random()) : 100 * (1 - depth * (0.5 + 0.5 * random()));
+    outline.push([r * Math.cos(a), r * Math.sin(a)]);
+  }
+  return { outline, obstacles: [] };
+}
+
+/**
+ * A comb of about n corners with teeth of random width, height and valley depth, turned by
+ * `turn` radians (0: teeth point up, the outline is x-monotone).
+ */
+export function unevenCombRoom(random: () => number, n: number, turn = 0): PlainRoom {
+  const k = Math.max(1, Math.floor((n - 1) / 3));
+  const teeth: P[] = [];
+  let x = 0;
+  for (let i = 0; i < k; i++) {
+    const width = 0.5 + 2 * random();
+    const gap = 0.3 + 1.5 * random();
+    if (i > 0) teeth.push([x, 1 + random()]);
+    teeth.push([x + width * (0.2 + 0.6 * random()), 4 + 12 * random()]);
+    teeth.push([x + width, 1 + random()]);
+    x += width + gap;
+  }
+  teeth[teeth.length - 1] = [teeth[teeth.length - 1][0], 0];
+  // Counter-clockwise: along the floor, then back over the teeth from the right.
+  const outline: P[] = [[0, 0], ...teeth.reverse()];
+  const c = Math.cos(turn);
+  const s = Math.sin(turn);
+  return { outline: turn === 0 ? outline : outline.map(([px, py]) => [c * px - s * py, s * px + c * py] as P), obstacles: [] };
+}
+
+/** An orthogonal room (see orthogonalRoom) whose corners are each moved by up to `jitter` metres. */
+export function jitteredOrthogonalRoom(random: () => number, n: number, jitter = 0.2): PlainRoom {
+  let columns = Math.max(2, Math.round(n / 3));
+  let room = orthogonalRoom(random, columns);
+  // About 3 corners per column; widen until the outline has n or so.
+  while (room.outline.length < 0.9 * n) room = orthogonalRoom(random, (columns = Math.ceil(columns * 1.2)));
+  return { outline: room.outline.map(([x, y]) => [x + jitter * (random() - 0.5), y + jitter * (random() - 0.5)] as P), obstacles: [] };
+}
+
+/** A nearly convex ring: n corners around a circle, angles and radii shaken a little. */
+export function nearConvexRoom(random: () => number, n: number): PlainRoom {
+  const wobble = 0.005 + 0.03 * random();
+  const outline: P[] = [];
+  for (let i = 0; i < n; i++) {
+    const a = (2 * Math.PI * (i + 0.4 * (random() - 0.5))) / n;
+    const r = 100 * (1 + wobble * (random() - 0.5));
+    outline.push([r * Math.cos(a), r * Math.sin(a)]);
+  }
+  return { outline, obstacles: [] };
+}
