@@ -9,7 +9,7 @@ import { formatPoint } from "@/lib/geometry/room";
 import type { PlanTriangle } from "./plan-messages";
 import { moveVertex, nearestWall, insertVertex, type VertexRef } from "./room-edits";
 
-export type DrawingMode = "view" | "edit" | "obstacle" | "partition" | "pin" | "forbid";
+export type DrawingMode = "view" | "edit" | "obstacle" | "freeform" | "partition" | "pin" | "forbid";
 
 /** The three colours of the 3-colouring (ink, brass, stone): posts take one of them. */
 export const COLOUR_FILLS = ["#2f706c", "#c0963a", "#8f7d67"] as const;
@@ -33,11 +33,17 @@ export interface RoomDrawingProps {
   onRectangle?: (a: Point, b: Point) => void;
   /** A partition wall drawn as a line (mode "partition"). */
   onLine?: (a: Point, b: Point) => void;
+  /** An obstacle of any shape, clicked corner by corner and closed by a double-click (mode "freeform"). */
+  onPolygon?: (corners: Point[]) => void;
   onPin?: (p: Point) => void;
   onUnpin?: (index: number) => void;
   onRemoveForbidden?: (index: number) => void;
   /** Corners dragged or added land on this grid, in metres (0.1 by default). */
   snapStep?: number;
+  /** 1 = the whole room; 2 = twice as close. */
+  zoom?: number;
+  /** Where the view's centre sits, in metres from the room's centre. */
+  pan?: Point;
 }
 
 function path(ring: Ring): string {
@@ -53,6 +59,7 @@ export function RoomDrawing(props: RoomDrawingProps) {
   const svg = useRef<SVGSVGElement>(null);
   const [drag, setDrag] = useState<VertexRef | null>(null);
   const [rubber, setRubber] = useState<{ from: Point; to: Point } | null>(null);
+  const [sketch, setSketch] = useState<Point[]>([]);
 
   const all = [room.outline, ...room.obstacles].flat();
   const xs = all.map((p) => p[0]);
@@ -92,12 +99,22 @@ export function RoomDrawing(props: RoomDrawingProps) {
   for (let gx = Math.ceil((minX - pad) / gridStep) * gridStep; gx <= maxX + pad; gx += gridStep) gridLines.push({ x1: gx, y1: -(maxY + pad), x2: gx, y2: -(minY - pad) });
   for (let gy = Math.ceil((minY - pad) / gridStep) * gridStep; gy <= maxY + pad; gy += gridStep) gridLines.push({ x1: minX - pad, y1: -gy, x2: maxX + pad, y2: -gy });
   const barLength = [1, 2, 5, 10, 20, 50, 100].find((l) => l >= size / 6) ?? 100;
+  // Zoom and pan move the window onto the room; the room's own numbers never change.
+  const zoom = Math.min(20, Math.max(1, props.zoom ?? 1));
+  const [panX, panY] = props.pan ?? [0, 0];
+  const viewW = (maxX - minX + 2 * pad) / zoom;
+  const viewH = (maxY - minY + 2 * pad) / zoom;
+  const centreX = (minX + maxX) / 2 + panX;
+  const centreY = -((minY + maxY) / 2 + panY);
+  const viewBox = `${centreX - viewW / 2} ${centreY - viewH / 2} ${viewW} ${viewH}`;
 
   function onPointerDown(event: React.PointerEvent<SVGSVGElement>) {
     if (mode === "obstacle" || mode === "forbid" || mode === "partition") {
       const p = mode === "partition" ? snapped(event) : metres(event);
       setRubber({ from: p, to: p });
       (event.target as Element).setPointerCapture?.(event.pointerId);
+    } else if (mode === "freeform") {
+      setSketch((points) => [...points, snapped(event)]);
     } else if (mode === "pin") {
       props.onPin?.(metres(event));
     } else if (editing && event.target === svg.current) {
@@ -125,6 +142,13 @@ export function RoomDrawing(props: RoomDrawingProps) {
   }
 
   function onDoubleClick(event: React.MouseEvent<SVGSVGElement>) {
+    if (mode === "freeform") {
+      // The double-click's own two clicks added the last corner twice: keep it once.
+      const corners = sketch.filter((p, i) => i === 0 || p[0] !== sketch[i - 1]![0] || p[1] !== sketch[i - 1]![1]);
+      if (corners.length >= 3) props.onPolygon?.(corners);
+      setSketch([]);
+      return;
+    }
     if (!editing) return;
     const p = snapped(event);
     const hit = nearestWall(room, p, unit * 1.5);
@@ -138,7 +162,7 @@ export function RoomDrawing(props: RoomDrawingProps) {
       data-testid="room-drawing"
       role="application"
       aria-label={`Drawing of the room, ${(maxX - minX).toFixed(1)} by ${(maxY - minY).toFixed(1)} metres`}
-      viewBox={`${minX - pad} ${-maxY - pad} ${maxX - minX + 2 * pad} ${maxY - minY + 2 * pad}`}
+      viewBox={viewBox}
       className={`h-[28rem] w-full touch-none select-none rounded-card border border-stone-200 bg-stone-100 ${mode === "view" ? "" : "cursor-crosshair"}`}
       onPointerDown={onPointerDown}
       onPointerMove={onPointerMove}
@@ -300,6 +324,23 @@ export function RoomDrawing(props: RoomDrawingProps) {
           }),
         )}
 
+      {drag && (() => {
+        // Wall lengths while a corner moves: the wall in and the wall out, in metres.
+        const ring = drag.ring === 0 ? room.outline : room.obstacles[drag.ring - 1];
+        const here = ring?.[drag.index];
+        if (!ring || !here) return null;
+        const before = ring[(drag.index - 1 + ring.length) % ring.length]!;
+        const after = ring[(drag.index + 1) % ring.length]!;
+        const len = (a: Point, b: Point) => Math.hypot(b[0] - a[0], b[1] - a[1]).toFixed(2);
+        return (
+          <text data-testid="drag-lengths" x={here[0] + unit * 1.2} y={-here[1] - unit * 1.2} fontSize={unit * 1.6} fill="#113836" stroke="#ffffff" strokeWidth={unit * 0.3} paintOrder="stroke">
+            {len(before, here)} m · {len(here, after)} m
+          </text>
+        );
+      })()}
+      {mode === "freeform" && sketch.length > 0 && (
+        <polyline data-testid="sketch" points={sketch.map(([x, y]) => `${x},${-y}`).join(" ")} fill="none" stroke="#113836" strokeWidth={unit * 0.25} strokeDasharray={`${unit * 0.5} ${unit * 0.5}`} />
+      )}
       {rubber && mode === "partition" && (
         <line x1={rubber.from[0]} y1={-rubber.from[1]} x2={rubber.to[0]} y2={-rubber.to[1]} stroke="#113836" strokeWidth={unit * 0.4} strokeDasharray={`${unit * 0.5} ${unit * 0.5}`} />
       )}

@@ -78,11 +78,53 @@ describe("drawing tools", () => {
       await page.mouse.move(box.x + box.width * 0.65, box.y + box.height * 0.5, { steps: 5 });
       await page.mouse.up();
 
+      // An obstacle of any shape typed by its corners (the keyboard way to draw one).
+      await page.getByRole("button", { name: "Add obstacle" }).first().click();
+      const typed = page.getByRole("form", { name: "Type an obstacle" });
+      await typed.getByLabel(/Obstacle corners/).fill("2 3");
+      await typed.getByRole("button", { name: "Add obstacle" }).click();
+      await shown(typed.getByRole("alert").filter({ hasText: "an obstacle needs at least 3 corners" }));
+      await typed.getByLabel(/Obstacle corners/).fill("7, 1; 9, 1; 8, 2.5");
+      await typed.getByRole("button", { name: "Add obstacle" }).click();
+
+      // An obstacle drawn corner by corner with the pointer, closed by a double-click.
+      await page.getByRole("button", { name: "Draw obstacle" }).click();
+      const area = (await drawing.boundingBox())!;
+      const at = (fx: number, fy: number) => ({ x: area.x + area.width * fx, y: area.y + area.height * fy });
+      for (const [fx, fy] of [[0.3, 0.3], [0.45, 0.3]] as const) await page.mouse.click(at(fx, fy).x, at(fx, fy).y);
+      // Two corners so far: the sketch line is there (flat, so not "visible" by its box).
+      await expect.poll(async () => drawing.getByTestId("sketch").count()).toBe(1);
+      await page.mouse.dblclick(at(0.38, 0.4).x, at(0.38, 0.4).y);
+      await expect.poll(async () => drawing.getByTestId("sketch").count()).toBe(0);
+
+      // Zoom and pan move the view, not the room.
+      const fitted = (await drawing.getAttribute("viewBox"))!.split(" ").map(Number);
+      await page.getByRole("button", { name: "Zoom in" }).click();
+      const zoomed = (await drawing.getAttribute("viewBox"))!.split(" ").map(Number);
+      expect(zoomed[2]!).toBeCloseTo(fitted[2]! / 1.5, 6);
+      await page.getByRole("button", { name: "Pan right" }).click();
+      expect(Number((await drawing.getAttribute("viewBox"))!.split(" ")[0])).toBeGreaterThan(zoomed[0]!);
+      await page.getByRole("button", { name: "Whole room" }).click();
+      expect((await drawing.getAttribute("viewBox"))!.split(" ").map(Number)).toEqual(fitted);
+
+      // While a corner is dragged, its two walls' lengths show beside it.
+      await page.getByRole("button", { name: "Edit walls" }).click();
+      const corner = (await page.locator('[data-vertex="0-0"]').boundingBox())!;
+      await page.mouse.move(corner.x + corner.width / 2, corner.y + corner.height / 2);
+      await page.mouse.down();
+      await page.mouse.move(corner.x + corner.width / 2 + 3, corner.y + corner.height / 2, { steps: 2 });
+      await shown(drawing.getByTestId("drag-lengths"));
+      expect(await drawing.getByTestId("drag-lengths").textContent()).toMatch(/^\d+\.\d{2} m · \d+\.\d{2} m$/);
+      await page.mouse.up();
+
       await page.getByRole("button", { name: "Save room" }).click();
       await shown(page.getByText("Saved: the room is now at version 2."));
       const saved = await db.selectFrom("rooms").select(["outline", "obstacles"]).where("id", "=", roomId).executeTakeFirstOrThrow();
-      expect(saved.obstacles).toHaveLength(1);
+      expect(saved.obstacles).toHaveLength(3);
+      expect(saved.obstacles[2]).toHaveLength(3);
       const ys = saved.obstacles[0]!.map((p) => p[1]);
+      // Stored clockwise (the server settles the orientation): the same three corners.
+      expect([...saved.obstacles[1]!].sort()).toEqual([[7, 1], [8, 2.5], [9, 1]]);
       expect(Math.max(...ys) - Math.min(...ys)).toBeCloseTo(0.2, 2);
       const xs = saved.outline.map((p) => p[0]);
       expect(Math.max(...xs) - Math.min(...xs)).toBeCloseTo(14, 6);

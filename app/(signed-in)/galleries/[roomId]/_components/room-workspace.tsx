@@ -19,6 +19,7 @@ import { PlanFigures } from "./plan-figures";
 import { StaffingPanel } from "./staffing-panel";
 import { CostOfChange } from "./cost-of-change";
 import { CornerPanel } from "./corner-panel";
+import { TypedShape } from "./typed-shape";
 import { useEditHistory } from "@/components/plan/use-edit-history";
 import { PostPlansPanel } from "./post-plans-panel";
 import { RoomVersions } from "./room-versions";
@@ -59,6 +60,7 @@ export function RoomWorkspace({ initial, canEdit, canApprove, exhibitionId, caut
   const [baseVersion, setBaseVersion] = useState(detail.version);
   const room: Room = draft ?? { outline: detail.outline, obstacles: detail.obstacles };
   const history = useEditHistory();
+  const roomSpan = Math.max(1, ...[room.outline.map((p) => p[0]), room.outline.map((p) => p[1])].map((v) => Math.max(...v) - Math.min(...v)));
   // The room as the last committed edit left it: a drag's moves are not steps of their own.
   const committed = useRef<Room>(room);
   if (draft === null) committed.current = room;
@@ -71,6 +73,8 @@ export function RoomWorkspace({ initial, canEdit, canApprove, exhibitionId, caut
   const [saving, setSaving] = useState(false);
   const [show, setShow] = useState({ triangles: true, guaranteed: true, sight: true });
   const [snapStep, setSnapStep] = useState(0.1);
+  const [zoom, setZoom] = useState(1);
+  const [pan, setPan] = useState<Point>([0, 0]);
   const [partitionThickness, setPartitionThickness] = useState("0.2");
 
   // Post-plan conditions (operations).
@@ -271,6 +275,7 @@ export function RoomWorkspace({ initial, canEdit, canApprove, exhibitionId, caut
     if (canEdit) {
       list.push({ mode: "edit", label: "Edit walls", hint: "Drag a corner to move it; double-click a wall to add a corner; select a corner or obstacle and press Delete (or the button) to remove it; arrow keys nudge the selected corner by 10 cm." });
       list.push({ mode: "obstacle", label: "Add obstacle", hint: "Drag a rectangle on the floor: a plinth or vitrine." });
+      list.push({ mode: "freeform", label: "Draw obstacle", hint: "Click the corners of a vitrine, plinth or pillar one by one; double-click to close it. Or type its corners below." });
       list.push({ mode: "partition", label: "Add partition", hint: "Drag a line where a partition wall stands; it becomes an obstacle of the thickness set beside the tools." });
     }
     if (canApprove) {
@@ -352,6 +357,8 @@ export function RoomWorkspace({ initial, canEdit, canApprove, exhibitionId, caut
           selectedObstacle={selectedObstacle}
           show={show}
           snapStep={snapStep}
+          zoom={zoom}
+          pan={pan}
           onRoomChange={(next, commit) => change(next, commit)}
           onSelectVertex={setSelectedVertex}
           onSelectObstacle={setSelectedObstacle}
@@ -365,6 +372,7 @@ export function RoomWorkspace({ initial, canEdit, canApprove, exhibitionId, caut
               if (Math.abs(zone[2][0] - zone[0][0]) >= 0.05 && Math.abs(zone[2][1] - zone[0][1]) >= 0.05) setForbidden([...forbidden, zone]);
             }
           }}
+          onPolygon={(corners) => change({ outline: room.outline, obstacles: [...room.obstacles, corners] })}
           onLine={(a, b) => {
             const next = addPartition(room, a, b, Number(partitionThickness.replace(",", ".")));
             if (typeof next === "string") setNotice({ kind: "error", text: `No partition added: ${next}.` });
@@ -377,6 +385,41 @@ export function RoomWorkspace({ initial, canEdit, canApprove, exhibitionId, caut
 
         {canEdit && mode === "edit" && selectedVertex && ringOf(room, selectedVertex.ring)[selectedVertex.index] && (
           <CornerPanel room={room} vertex={selectedVertex} onMove={(ref, to) => change(moveVertex(room, ref, to))} />
+        )}
+
+        <div className="flex flex-wrap items-center gap-2 text-sm" role="toolbar" aria-label="Zoom and pan">
+          <button type="button" className="button-quiet" onClick={() => setZoom((z) => Math.min(20, z * 1.5))}>Zoom in</button>
+          <button type="button" className="button-quiet" disabled={zoom <= 1} onClick={() => setZoom((z) => Math.max(1, z / 1.5))}>Zoom out</button>
+          {(
+            [
+              ["←", "Pan left", [-1, 0]],
+              ["→", "Pan right", [1, 0]],
+              ["↑", "Pan up", [0, 1]],
+              ["↓", "Pan down", [0, -1]],
+            ] as const
+          ).map(([glyph, label, [dx, dy]]) => (
+            <button key={label} type="button" className="button-quiet" aria-label={label} disabled={zoom <= 1} onClick={() => setPan(([x, y]) => [x + (dx * roomSpan) / (4 * zoom), y + (dy * roomSpan) / (4 * zoom)])}>
+              {glyph}
+            </button>
+          ))}
+          <button type="button" className="button-quiet" disabled={zoom === 1 && pan[0] === 0 && pan[1] === 0} onClick={() => { setZoom(1); setPan([0, 0]); }}>Whole room</button>
+          <span className="text-stone-700">{zoom === 1 ? "whole room" : `${Math.round(zoom * 100)} %`}</span>
+        </div>
+        {canEdit && (mode === "obstacle" || mode === "freeform" || mode === "partition") && (
+          <TypedShape
+            kind={mode === "partition" ? "partition" : "obstacle"}
+            onObstacle={(corners) => {
+              const next: Room = { outline: room.outline, obstacles: [...room.obstacles, corners.map((p) => [Math.round(p[0] * 100) / 100, Math.round(p[1] * 100) / 100] as Point)] };
+              change(next);
+              return null;
+            }}
+            onPartition={(a, b) => {
+              const next = addPartition(room, a, b, Number(partitionThickness.replace(",", ".")));
+              if (typeof next === "string") return next;
+              change(next);
+              return null;
+            }}
+          />
         )}
 
         <fieldset className="flex flex-wrap gap-4 text-sm">
