@@ -1,11 +1,13 @@
 // The curator's whole flow in Chromium: a new floor and a room from the galleries page; in the
 // editor two corners are added on a wall and three corners typed so the rectangle becomes an L, for
 // which the plan needs one post (an L-shaped room is star-shaped: its reflex corner sees it all);
-// saved as version 2; then version 1 is restored, which saves the rectangle again as version 3.
+// saved as version 2; then version 1 is restored, which saves the rectangle again as version 3;
+// a save over walls someone else saved meanwhile shows both and reloads theirs.
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import type { Browser, Locator } from "playwright-core";
 import { DEMO_PASSWORD } from "@/db/seed/accounts";
 import { launchBrowser, newContext, signInThroughForm } from "./support/browser";
+import { signedIn } from "./support/http";
 import { testDb } from "./support/server";
 
 const db = testDb();
@@ -85,6 +87,22 @@ describe("a curator's room from nothing", () => {
       const restored = await db.selectFrom("rooms").select("outline").where("id", "=", room.id).executeTakeFirstOrThrow();
       expect(restored.outline).toHaveLength(4);
       await expect.poll(() => drawing.getAttribute("aria-label")).toBe("Drawing of the room, 10.0 by 8.0 metres");
+
+      // A stale save: someone else saves version 4 while this page edits version 3.
+      await page.locator('[data-vertex="0-2"]').click();
+      const panel = page.getByTestId("corner-panel");
+      await panel.getByLabel("x (m)").fill("11");
+      await panel.getByRole("button", { name: "Move corner" }).click();
+      const { who } = await signedIn("curator@example.org", DEMO_PASSWORD);
+      const theirs = { outline: [[0, 0], [9, 0], [9, 9], [0, 9]], obstacles: [], version: 3 };
+      expect((await who.request(`/api/rooms/${room.id}`, { method: "PUT", json: theirs })).status).toBe(200);
+      await page.getByRole("button", { name: "Save room" }).click();
+      const conflict = page.getByTestId("save-conflict");
+      await shown(conflict.getByRole("heading", { name: "Someone else saved version 4 meanwhile" }));
+      expect(await conflict.getByRole("img").count()).toBe(2);
+      await conflict.getByRole("button", { name: "Reload version 4" }).click();
+      await expect.poll(() => drawing.getAttribute("aria-label")).toBe("Drawing of the room, 9.0 by 9.0 metres");
+      expect((await db.selectFrom("rooms").select("version").where("id", "=", room.id).executeTakeFirstOrThrow()).version).toBe(4);
     } finally {
       await context.close();
     }

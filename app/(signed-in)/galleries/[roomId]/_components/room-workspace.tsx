@@ -19,6 +19,7 @@ import { PlanFigures } from "./plan-figures";
 import { StaffingPanel } from "./staffing-panel";
 import { CostOfChange } from "./cost-of-change";
 import { CornerPanel } from "./corner-panel";
+import { RoomOutline } from "@/components/room-outline";
 import { TypedShape } from "./typed-shape";
 import { useEditHistory } from "@/components/plan/use-edit-history";
 import { PostPlansPanel } from "./post-plans-panel";
@@ -71,6 +72,8 @@ export function RoomWorkspace({ initial, canEdit, canApprove, exhibitionId, caut
   const [serverProblems, setServerProblems] = useState<RoomProblem[]>([]);
   const [importProblems, setImportProblems] = useState<string[]>([]);
   const [saving, setSaving] = useState(false);
+  // Someone saved the room while these walls were being edited: their walls, to compare with ours.
+  const [conflict, setConflict] = useState<{ version: number; outline: Ring; obstacles: Ring[] } | null>(null);
   const [show, setShow] = useState({ triangles: true, guaranteed: true, sight: true });
   const [snapStep, setSnapStep] = useState(0.1);
   const [zoom, setZoom] = useState(1);
@@ -238,6 +241,10 @@ export function RoomWorkspace({ initial, canEdit, canApprove, exhibitionId, caut
     } catch (error) {
       if (error instanceof ApiRequestError) {
         if (error.status === 422 && Array.isArray(error.details.problems)) setServerProblems(error.details.problems as RoomProblem[]);
+        if (error.status === 409) {
+          const fresh = await apiFetch<RoomData>(`/api/rooms/${detail.id}`).catch(() => null);
+          if (fresh) setConflict({ version: fresh.room.version, outline: fresh.room.outline, obstacles: fresh.room.obstacles });
+        }
         setNotice({ kind: "error", text: error.message });
       } else setNotice({ kind: "error", text: "The room could not be saved: the server did not answer. Try again." });
     } finally {
@@ -250,6 +257,7 @@ export function RoomWorkspace({ initial, canEdit, canApprove, exhibitionId, caut
     setBaseVersion(fresh.room.version);
     setDraft(null);
     history.clear();
+    setConflict(null);
     setNotice(null);
     setServerProblems([]);
   }
@@ -467,6 +475,27 @@ export function RoomWorkspace({ initial, canEdit, canApprove, exhibitionId, caut
             </p>
           )}
         </div>
+
+        {conflict && (
+          <section className="card space-y-2 border-l-4 border-alert-600" aria-labelledby="save-conflict" data-testid="save-conflict">
+            <h2 id="save-conflict" className="text-base">Someone else saved version {conflict.version} meanwhile</h2>
+            <p className="text-sm text-stone-700">Nothing of yours was saved. Compare the two, then reload theirs (your changes are dropped) or keep editing and copy your change onto theirs.</p>
+            <div className="flex flex-wrap gap-4">
+              <figure>
+                <RoomOutline outline={room.outline} obstacles={room.obstacles} label={`${detail.name}, your unsaved walls`} size={200} />
+                <figcaption className="text-sm">Your unsaved walls</figcaption>
+              </figure>
+              <figure>
+                <RoomOutline outline={conflict.outline} obstacles={conflict.obstacles} label={`${detail.name}, version ${conflict.version}`} size={200} />
+                <figcaption className="text-sm">Version {conflict.version}, saved meanwhile</figcaption>
+              </figure>
+            </div>
+            <div className="flex flex-wrap gap-2">
+              <button type="button" className="button" onClick={() => void reload()}>Reload version {conflict.version}</button>
+              <button type="button" className="button-quiet" onClick={() => setConflict(null)}>Keep editing</button>
+            </div>
+          </section>
+        )}
 
         {canEdit && (
           <div className="card flex flex-wrap items-end gap-3">
