@@ -348,6 +348,26 @@ export interface Database {
   account_links: AccountLinksTable;
   outbox: OutboxTable;
   audit_events: AuditEventsTable;
+  roster_overrides: RosterOverridesTable;
+}
+
+/** A change to a draft kept against labour rules, with the note saying why, who and when (0110). */
+export interface RosterOverridesTable {
+  id: GeneratedAlways<number>;
+  roster_id: number;
+  /** The draft revision the change made. */
+  revision: number;
+  guard_id: number | null;
+  post: string;
+  starts_at: Timestamp;
+  ends_at: Timestamp;
+  rules: string[];
+  /** The violations the change was kept with, as stored on the roster (names, not ids). */
+  violations: ColumnType<RosterViolation[], string | undefined, string>;
+  note: string;
+  created_by: number | null;
+  created_by_name: string;
+  created_at: ColumnType<Date, Date | string | undefined, Date | string>;
 }
 
 /** One change someone made (0100); append-only: the database refuses UPDATE and DELETE. */

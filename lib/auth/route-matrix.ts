@@ -59,6 +59,8 @@ export const ROUTE_MATRIX: Readonly<Record<string, RouteAccess>> = {
   "GET /api/rosters/[id]/review": "rosters:publish",
   "GET /api/rosters/[id]/reassign": "rosters:publish",
   "POST /api/rosters/[id]/reassign": "rosters:publish",
+  "GET /api/rosters/[id]/adjust": "rosters:publish",
+  "POST /api/rosters/[id]/adjust": "rosters:publish",
   "POST /api/rosters/[id]/publish": "rosters:publish",
   "GET /api/jobs/[id]": "staffing:view",
   "POST /api/guards": "people:edit",

@@ -2,14 +2,14 @@
 // that breaks a rule the draft kept is refused with that rule's message, and nothing is written.
 import type { Kysely } from "kysely";
 import { sql } from "kysely";
-import type { Database, Roster as RosterRow } from "@/db/schema";
+import type { Database, Roster as RosterRow, RosterViolation } from "@/db/schema";
 import { toJson } from "@/db/schema";
 import { guardsOfSite, insertShifts, shiftsOfRoster } from "@/db/queries/rosters";
-import { buildDemand } from "@/lib/scheduling/demand";
-import { checkRoster, ruleContext } from "@/lib/scheduling/rules";
 import { parseScenario, type Scenario } from "@/lib/scheduling/scenario";
 import { computeTotals } from "@/lib/scheduling/totals";
 import { paidMs, type Roster, type Violation } from "@/lib/scheduling/roster";
+import { currentOverridesOfRoster, insertRosterOverride } from "@/db/queries/roster-overrides";
+import { checkAdjust, checkOutcome, editCheckContext, overridable, RULES_NEVER_OVERRIDDEN, unacceptedViolations, type AdjustChange, type EditCheck, type EditCheckContext } from "./edit-check";
 import { RosterProblem } from "./problem";
 import { postLabels } from "./shift-events";
 import { reassign, type ReassignSource } from "./reassign";
@@ -48,19 +48,9 @@ export async function lockDraft(trx: Kysely<Database>, rosterId: number, revisio
 }
 
 /** What a reassignment would do: the new roster and its violations, or why it cannot be made. */
-type ReassignCheck =
-  | { ok: true; roster: Roster; after: Violation[] }
-  | { ok: false; code: "cannot-reassign" | "breaks-rule"; message: string; violations?: ReturnType<typeof storedViolations> };
+type ReassignCheck = EditCheck;
 
-interface EditContext {
-  scenario: Scenario;
-  demand: ReturnType<typeof buildDemand>;
-  context: ReturnType<typeof ruleContext>;
-  before: Roster;
-  known: Set<string>;
-  names: Map<number, string>;
-  labels: Map<string, string>;
-}
+type EditContext = EditCheckContext;
 
 function sourceOf(from: ReassignRequest["from"]): ReassignSource {
   const start = new Date(from.start).getTime();
@@ -69,18 +59,7 @@ function sourceOf(from: ReassignRequest["from"]): ReassignSource {
 
 /** The same checks the engine's rules make, on the roster as it would be after the change. */
 function checkReassign(edit: EditContext, source: ReassignSource, toKey: string): ReassignCheck {
-  const outcome = reassign(edit.before, source, toKey, edit.scenario.rules.minRestHours);
-  if (!outcome.ok) return { ok: false, code: "cannot-reassign", message: withGuardNames(outcome.message, edit.names, edit.labels) };
-  const after = checkRoster(edit.scenario, outcome.roster, edit.context);
-  const broken = after.filter((v) => !edit.known.has(`${v.rule}|${v.message}`));
-  if (broken.length > 0) {
-    const violations = storedViolations(broken, edit.names, edit.labels);
-    // Name every rule the edit would break (a person fixes them together), the first three in full.
-    const named = violations.slice(0, 3).map((v) => `${v.message} (rule ${v.rule})`);
-    const more = violations.length > 3 ? `; and ${violations.length - 3} more` : "";
-    return { ok: false, code: "breaks-rule", message: `Not changed: ${named.join("; ")}${more}.`, violations };
-  }
-  return { ok: true, roster: outcome.roster, after };
+  return checkOutcome(edit, reassign(edit.before, source, toKey, edit.scenario.rules.minRestHours));
 }
 
 async function editContext(trx: Kysely<Database>, roster: RosterRow): Promise<EditContext> {
@@ -88,17 +67,7 @@ async function editContext(trx: Kysely<Database>, roster: RosterRow): Promise<Ed
   const guards = await guardsOfSite(trx, roster.site_id);
   const rows = await shiftsOfRoster(trx, roster.id);
   const before = engineRoster({ shifts: rows, unfilled: roster.unfilled });
-  const demand = buildDemand(scenario);
-  const context = ruleContext(scenario, demand);
-  return {
-    scenario,
-    demand,
-    context,
-    before,
-    known: new Set(checkRoster(scenario, before, context).map((v) => `${v.rule}|${v.message}`)),
-    names: new Map(guards.map((g) => [g.id, g.name])),
-    labels: postLabels(scenario),
-  };
+  return editCheckContext(scenario, before, new Map(guards.map((g) => [g.id, g.name])), postLabels(scenario));
 }
 
 /** A guard the stretch could go to: whether the rules allow it, and if not, the rule and why. */
@@ -166,22 +135,72 @@ export async function reassignInDraft(db: Kysely<Database>, request: ReassignReq
     }
     const outcome = checkReassign(edit, sourceOf(request.from), toKey);
     if (!outcome.ok) throw new RosterProblem(422, outcome.code, outcome.message, outcome.violations ? { violations: outcome.violations } : {});
-    const after = outcome.after;
+    return saveEdit(trx, roster.id, edit, outcome.roster, outcome.after, []);
+  });
+}
 
-    const stored = storedRoster(outcome.roster, (text) => withGuardNames(text, names, labels));
-    await trx.deleteFrom("shifts").where("roster_id", "=", roster.id).execute();
-    await insertShifts(trx, roster.id, stored.shifts);
-    const updated = await trx
-      .updateTable("rosters")
-      .set({
-        revision: sql<number>`revision + 1`,
-        unfilled: toJson(stored.unfilled),
-        totals: toJson(storedTotals(computeTotals(scenario, demand, outcome.roster))),
-        violations: toJson(storedViolations(after, names, labels)),
-      })
-      .where("id", "=", roster.id)
-      .returning("revision")
-      .executeTakeFirstOrThrow();
-    return { revision: updated.revision };
+/** Writes an edited draft: its shifts, unfilled slots, totals and the violations not kept on purpose. */
+async function saveEdit(trx: Kysely<Database>, rosterId: number, edit: EditContext, after: Roster, violations: Violation[], accepted: RosterViolation[]): Promise<{ revision: number }> {
+  const { scenario, demand, names, labels } = edit;
+  const kept = [...(await currentOverridesOfRoster(trx, rosterId)).flatMap((o) => o.violations), ...accepted];
+  const stored = storedRoster(after, (text) => withGuardNames(text, names, labels));
+  await trx.deleteFrom("shifts").where("roster_id", "=", rosterId).execute();
+  await insertShifts(trx, rosterId, stored.shifts);
+  const updated = await trx
+    .updateTable("rosters")
+    .set({
+      revision: sql<number>`revision + 1`,
+      unfilled: toJson(stored.unfilled),
+      totals: toJson(storedTotals(computeTotals(scenario, demand, after))),
+      violations: toJson(unacceptedViolations(storedViolations(violations, names, labels), kept)),
+    })
+    .where("id", "=", rosterId)
+    .returning("revision")
+    .executeTakeFirstOrThrow();
+  return { revision: updated.revision };
+}
+
+export interface AdjustRequest extends AdjustChange {
+  rosterId: number;
+  revision: number;
+  /** Why the change is kept although it breaks a rule; without it such a change is refused. */
+  overrideNote?: string;
+  user: { id: number; name: string };
+}
+
+/**
+ * Moves one segment of the draft in time and/or to another guard (the week builder), checked with
+ * the engine's rules; a change that breaks one is refused naming it, or kept with an override note.
+ */
+export async function adjustInDraft(db: Kysely<Database>, request: AdjustRequest): Promise<{ revision: number; overridden: RosterViolation[] }> {
+  return db.transaction().execute(async (trx) => {
+    const roster = await lockDraft(trx, request.rosterId, request.revision);
+    const edit = await editContext(trx, roster);
+    if (!edit.scenario.guards.some((g) => g.id === guardKey(request.toGuardId))) {
+      throw new RosterProblem(422, "unknown-guard", `Guard ${request.toGuardId} is not on this roster's staff list; rebuild the roster to include new guards.`, { field: "toGuardId" });
+    }
+    const check = checkAdjust(edit, request);
+    const note = request.overrideNote?.trim() ?? "";
+    if (check.ok) return { ...(await saveEdit(trx, roster.id, edit, check.roster, check.after, [])), overridden: [] };
+    if (check.code !== "breaks-rule" || note === "") throw new RosterProblem(422, check.code, check.message, check.violations ? { violations: check.violations } : {});
+    const broken = check.violations;
+    if (!overridable(broken)) {
+      const rules = [...new Set(broken.filter((v) => RULES_NEVER_OVERRIDDEN.includes(v.rule)).map((v) => v.rule))].join(", ");
+      throw new RosterProblem(422, "not-overridable", `${check.message} A note cannot keep a change against rule ${rules}.`, { violations: broken });
+    }
+    // Kept against the rules on purpose: apply the change and remember why, who and when.
+    const saved = await saveEdit(trx, roster.id, edit, check.roster, check.after, broken);
+    await insertRosterOverride(trx, {
+      rosterId: roster.id,
+      revision: saved.revision,
+      guardId: request.toGuardId,
+      post: request.from.post,
+      startsAt: new Date(request.start),
+      endsAt: new Date(request.end),
+      violations: broken,
+      note,
+      createdBy: request.user,
+    });
+    return { ...saved, overridden: broken };
   });
 }

@@ -102,3 +102,40 @@ export function reassign(roster: Roster, source: ReassignSource, toGuard: string
   placed.shifts.sort((a, b) => a.start - b.start || (a.guard < b.guard ? -1 : a.guard > b.guard ? 1 : 0));
   return { ok: true, roster: { shifts: placed.shifts, unfilled } };
 }
+
+/** A guard's segment moved in time and/or given to another guard (the week builder's drag, resize or form). */
+export interface Adjustment {
+  guard: string;
+  post: string;
+  start: number;
+  newStart: number;
+  newEnd: number;
+  toGuard: string;
+}
+
+/**
+ * Moves one segment to [newStart, newEnd) and/or to another guard. The post-slots it leaves become
+ * unfilled with `vacatedReason`; unfilled slots of the post it now covers are filled.
+ */
+export function adjust(roster: Roster, change: Adjustment, sameDayGapHours: number, slots: readonly { start: number; end: number }[], vacatedReason: string): ReassignOutcome {
+  if (!(change.newEnd > change.newStart)) return { ok: false, message: "the new end must come after the new start" };
+  let shifts = roster.shifts.map(cloneShift);
+  const shift = shifts.find((s) => s.guard === change.guard && s.segments.some((x) => x.post === change.post && x.start === change.start));
+  if (!shift) return { ok: false, message: `no segment of ${change.guard} at post ${change.post} starts then; reload the roster` };
+  const segment = shift.segments.find((x) => x.post === change.post && x.start === change.start)!;
+  if (change.toGuard === change.guard && segment.start === change.newStart && segment.end === change.newEnd) return { ok: false, message: "nothing changes: pick other times or another guard" };
+  const rest = withoutStretch(shift, segment.start, segment.end);
+  shifts = shifts.flatMap((s) => (s === shift ? (rest ? [rest] : []) : [s]));
+  const placed = withStretch(shifts, change.toGuard, change.post, change.newStart, change.newEnd, sameDayGapHours * 3_600_000);
+  if (!placed.ok) return placed;
+  placed.shifts.sort((a, b) => a.start - b.start || (a.guard < b.guard ? -1 : a.guard > b.guard ? 1 : 0));
+  // Slots the segment covered and no longer does are open again; a slot the segment now covers is no longer unfilled.
+  const vacated = slots
+    .filter((slot) => slot.start < segment.end && segment.start < slot.end && !(slot.start < change.newEnd && change.newStart < slot.end))
+    .map((slot) => ({ post: change.post, start: slot.start, end: slot.end, reason: vacatedReason }));
+  const unfilled = [
+    ...roster.unfilled.filter((u) => !(u.post === change.post && u.start < change.newEnd && change.newStart < u.end)).map((u) => ({ ...u })),
+    ...vacated.filter((v) => !roster.unfilled.some((u) => u.post === v.post && u.start === v.start)),
+  ].sort((a, b) => a.start - b.start || (a.post < b.post ? -1 : a.post > b.post ? 1 : 0));
+  return { ok: true, roster: { shifts: placed.shifts, unfilled } };
+}

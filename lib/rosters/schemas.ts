@@ -74,3 +74,25 @@ export const calendarTokenSchema = z.object({ token: z.string().regex(/^[0-9a-f]
 function dayDifference(from: string, to: string): number {
   return (Date.parse(`${to}T00:00:00Z`) - Date.parse(`${from}T00:00:00Z`)) / 86_400_000;
 }
+
+const isoInstant = (field: string) => z.iso.datetime({ offset: true, error: `${field} must be an ISO date-time, e.g. 2027-03-23T09:00:00.000Z` });
+
+/** POST /api/rosters/[id]/adjust: one guard's segment moved in time and/or given to another guard. */
+export const adjustRequestSchema = z
+  .object({
+    revision: counter("revision"),
+    from: z.object({
+      guardId: bodyId("guardId"),
+      post: z.string().min(1, "post is required").max(100),
+      start: isoInstant("start"),
+    }),
+    start: isoInstant("start"),
+    end: isoInstant("end"),
+    /** Another guard to take the segment; the same guard when left out. */
+    toGuardId: bodyId("toGuardId").optional(),
+    /** Why the change is kept although it breaks a labour rule; stored with who and when. */
+    overrideNote: z.string().trim().max(500, "overrideNote: at most 500 characters").optional(),
+  })
+  .refine((body) => Date.parse(body.end) > Date.parse(body.start), { path: ["end"], message: "the end must come after the start" })
+  .refine((body) => Date.parse(body.end) - Date.parse(body.start) <= 24 * 3_600_000, { path: ["end"], message: "a segment lasts at most 24 hours" });
+export type AdjustRequestBody = z.input<typeof adjustRequestSchema>;

@@ -13,6 +13,7 @@ import type { JobState, RosterView, WeekOverview } from "./roster-types";
 import { RosterGrid } from "./roster-grid";
 import { RosterSummary } from "./roster-summary";
 import { PublishReviewPanel } from "./publish-review";
+import { WeekBuilder } from "./week-builder";
 
 function useJob(jobId: number | null) {
   return useQuery({
@@ -195,6 +196,7 @@ export function RosterWorkbench({ initialWeek, initialRosterId = null }: { initi
           )}
           {mailJobId !== null && mailJob.data && <JobProgress label="E-mailing guards" job={mailJob.data} />}
           <RosterSummary roster={shown} />
+          {shown.status === "draft" && <WeekBuilder roster={shown} onChanged={() => void queryClient.invalidateQueries({ queryKey: ["roster-week", week] })} />}
           <RosterGrid roster={shown} onChanged={() => void queryClient.invalidateQueries({ queryKey: ["roster-week", week] })} />
         </>
       )}
