@@ -312,6 +312,17 @@ export function RoomDrawing(props: RoomDrawingProps) {
                 stroke="#113836"
                 strokeWidth={unit * 0.2}
                 className="cursor-move"
+                // Corners are reachable by Tab; Enter or Space selects one, the arrow keys then move it.
+                tabIndex={0}
+                role="button"
+                aria-pressed={selected}
+                onKeyDown={(event) => {
+                  if (event.key === "Enter" || event.key === " ") {
+                    event.preventDefault();
+                    props.onSelectVertex?.({ ring: r, index: i });
+                    props.onSelectObstacle?.(null);
+                  }
+                }}
                 onPointerDown={(event) => {
                   event.stopPropagation();
                   svg.current?.setPointerCapture?.(event.pointerId);

@@ -48,6 +48,20 @@ describe("drawing tools", () => {
       expect(await drawing.getByTestId("drawing-grid").locator("line").count()).toBeGreaterThan(10);
       expect(await drawing.getByTestId("scale-bar").textContent()).toMatch(/^\d+ m$/);
       await page.getByRole("button", { name: "Edit walls" }).click();
+      // By keyboard: a corner takes the focus, Enter selects it, an arrow key nudges it 10 cm, and a
+      // button adds a corner on its next wall; Undo takes both back.
+      await page.locator('[data-vertex="0-1"]').focus();
+      await page.keyboard.press("Enter");
+      const keyed = page.getByTestId("corner-panel");
+      await shown(keyed.getByRole("heading", { name: "Selected corner 2" }));
+      await page.locator('[data-vertex="0-1"]').press("ArrowRight");
+      await expect.poll(() => keyed.getByLabel("x (m)").inputValue()).toBe("10.10");
+      await keyed.getByRole("button", { name: "Add a corner in the middle of the next wall" }).click();
+      await expect.poll(() => page.locator('[data-vertex^="0-"]').count()).toBe(5);
+      await page.getByRole("button", { name: "Undo" }).click();
+      await page.getByRole("button", { name: "Undo" }).click();
+      await expect.poll(() => page.locator('[data-vertex^="0-"]').count()).toBe(4);
+      await expect.poll(() => drawing.getAttribute("aria-label")).toBe("Drawing of the room, 10.0 by 8.0 metres");
       await page.locator('[data-vertex="0-2"]').click();
       const panel = page.getByTestId("corner-panel");
       await shown(panel.getByRole("heading", { name: "Selected corner 3" }));

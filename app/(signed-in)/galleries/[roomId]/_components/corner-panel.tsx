@@ -8,7 +8,7 @@ import { ringOf, type VertexRef } from "@/components/plan/room-edits";
 const metres = (v: number) => (Math.round(v * 100) / 100).toFixed(2);
 const length = (a: Point, b: Point) => Math.hypot(b[0] - a[0], b[1] - a[1]);
 
-export function CornerPanel({ room, vertex, onMove }: { room: Room; vertex: VertexRef; onMove: (ref: VertexRef, to: Point) => void }) {
+export function CornerPanel({ room, vertex, onMove, onInsertAfter }: { room: Room; vertex: VertexRef; onMove: (ref: VertexRef, to: Point) => void; onInsertAfter: (wall: VertexRef, at: Point) => void }) {
   const ring = ringOf(room, vertex.ring);
   const here = ring[vertex.index]!;
   const before = ring[(vertex.index - 1 + ring.length) % ring.length]!;
@@ -72,6 +72,9 @@ export function CornerPanel({ room, vertex, onMove }: { room: Room; vertex: Vert
         </label>
         <button type="submit" className="button-quiet">Set length</button>
       </form>
+      <button type="button" className="button-quiet" onClick={() => onInsertAfter(vertex, [(here[0] + after[0]) / 2, (here[1] + after[1]) / 2])}>
+        Add a corner in the middle of the next wall
+      </button>
       {problem && <p role="alert" className="text-alert-700">{problem}</p>}
     </section>
   );

@@ -13,7 +13,7 @@ import type { RoomDetail, RoomExhibition } from "@/db/queries/rooms";
 import type { PostPlanView } from "@/db/queries/post-plans";
 import { RoomDrawing, COLOUR_NAMES, type DrawingMode } from "@/components/plan/room-drawing";
 import { usePlanWorker } from "@/components/plan/use-plan-worker";
-import { addPartition, addRectangleObstacle, deleteVertex, moveVertex, rectangle, removeObstacle, ringOf, type VertexRef } from "@/components/plan/room-edits";
+import { addPartition, addRectangleObstacle, deleteVertex, insertVertex, moveVertex, rectangle, removeObstacle, ringOf, type VertexRef } from "@/components/plan/room-edits";
 import type { FewestPreview, RoomWalls } from "@/lib/api/plan-input";
 import { PlanFigures } from "./plan-figures";
 import { StaffingPanel } from "./staffing-panel";
@@ -392,7 +392,15 @@ export function RoomWorkspace({ initial, canEdit, canApprove, exhibitionId, caut
         />
 
         {canEdit && mode === "edit" && selectedVertex && ringOf(room, selectedVertex.ring)[selectedVertex.index] && (
-          <CornerPanel room={room} vertex={selectedVertex} onMove={(ref, to) => change(moveVertex(room, ref, to))} />
+          <CornerPanel
+            room={room}
+            vertex={selectedVertex}
+            onMove={(ref, to) => change(moveVertex(room, ref, to))}
+            onInsertAfter={(wall, at) => {
+              change(insertVertex(room, wall, at));
+              setSelectedVertex({ ring: wall.ring, index: wall.index + 1 });
+            }}
+          />
         )}
 
         <div className="flex flex-wrap items-center gap-2 text-sm" role="toolbar" aria-label="Zoom and pan">
