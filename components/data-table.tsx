@@ -92,3 +92,28 @@ export function DataTable<T>({ data, columns, caption, initialSorting = [], colu
     </div>
   );
 }
+
+/** A filter above a DataTable: "" is the all-rows choice, named by `all`. */
+export function FilterSelect({ id, label, value, onChange, all, options }: { id: string; label: string; value: string; onChange: (value: string) => void; all: string; options: [value: string, label: string][] }) {
+  return (
+    <div>
+      <label htmlFor={id} className="block text-sm font-semibold">{label}</label>
+      <select id={id} className="field-input mt-0" value={value} onChange={(e) => onChange(e.target.value)}>
+        <option value="">{all}</option>
+        {options.map(([v, l]) => (
+          <option key={v} value={v}>{l}</option>
+        ))}
+      </select>
+    </div>
+  );
+}
+
+/** The free-text filter above a DataTable. */
+export function FilterSearch({ id, value, onChange, placeholder }: { id: string; value: string; onChange: (value: string) => void; placeholder: string }) {
+  return (
+    <div className="min-w-[12rem] flex-1">
+      <label htmlFor={id} className="block text-sm font-semibold">Search</label>
+      <input id={id} type="search" className="field-input mt-0" placeholder={placeholder} value={value} onChange={(e) => onChange(e.target.value)} />
+    </div>
+  );
+}

@@ -41,7 +41,12 @@ export interface StaleApproval {
   roomVersion: number;
 }
 
+/** What is stale and what to do, without the room's name (for a line that names the room already). */
+export function staleApprovalDetail(s: Omit<StaleApproval, "roomName">): string {
+  return `plan ${s.planId} for ${s.exhibitionName} was approved for version ${s.planRoomVersion} of the walls, which are at version ${s.roomVersion} now. Rosters still staff the approved posts; operations should compute a new plan for the room and approve it.`;
+}
+
 /** One sentence saying what is stale and what to do. */
 export function staleApprovalText(s: StaleApproval): string {
-  return `${s.roomName}: plan ${s.planId} for ${s.exhibitionName} was approved for version ${s.planRoomVersion} of the walls, which are at version ${s.roomVersion} now. Rosters still staff the approved posts; operations should compute a new plan for the room and approve it.`;
+  return `${s.roomName}: ${staleApprovalDetail(s)}`;
 }

@@ -13,7 +13,12 @@ export interface FloorMapSheet {
   title: string;
   exhibition: string | null;
   map: FloorMap;
+  /** The standalone file (sized in millimetres, for export and print). */
   svg: string;
+  /** The same drawing sized to the page's width. */
+  inlineSvg: string;
+  /** A file name without extension, e.g. "brackwater-museum-ground-floor". */
+  fileName: string;
 }
 
 /** Null when there is no such floor. `own` marks a guard's posts: post ids such as "R12-P2". */
@@ -37,5 +42,14 @@ export async function floorMapSheet(db: Kysely<Database>, floorId: number, own: 
   );
   const exhibition = rooms.find((r) => r.exhibition)?.exhibition ?? null;
   const title = `${site?.name ?? "Site"} · ${floor.name}`;
-  return { floor: { id: floor.id, name: floor.name, siteId: floor.site_id }, title, exhibition, map, svg: floorMapSvg(map, { title, date: formatDate(format, today), exhibition }) };
+  const svg = floorMapSvg(map, { title, date: formatDate(format, today), exhibition });
+  return {
+    floor: { id: floor.id, name: floor.name, siteId: floor.site_id },
+    title,
+    exhibition,
+    map,
+    svg,
+    inlineSvg: svg.replace(/ width="[^"]*mm" height="[^"]*mm"/, ' width="100%"'),
+    fileName: title.replace(/[^\w\- ]+/g, "").replace(/\s+/g, "-").toLowerCase() || "floor",
+  };
 }

@@ -6,34 +6,18 @@
 import autocannon from "autocannon";
 import { createDb } from "../../db";
 import { DEMO_PASSWORD } from "../../db/seed/accounts";
+import { signedIn } from "../e2e/support/http";
 
 const BASE = (process.env.LOAD_BASE_URL ?? "http://127.0.0.1:3000").replace(/\/$/, "");
 const SECONDS = Number(process.env.LOAD_SECONDS ?? 20);
 const CONNECTIONS = 50;
 const PASSWORD = process.env.LOAD_PASSWORD ?? DEMO_PASSWORD;
 
+/** The session cookie of a demo account, signed in the way the browser tests do. */
 async function signIn(email: string): Promise<string> {
-  const jar = new Map<string, string>();
-  const keep = (response: Response) => {
-    for (const line of response.headers.getSetCookie()) {
-      const [pair] = line.split(";");
-      const eq = pair!.indexOf("=");
-      jar.set(pair!.slice(0, eq), pair!.slice(eq + 1));
-    }
-  };
-  const cookie = () => [...jar].map(([k, v]) => `${k}=${v}`).join("; ");
-  const csrfResponse = await fetch(`${BASE}/api/auth/csrf`);
-  keep(csrfResponse);
-  const { csrfToken } = (await csrfResponse.json()) as { csrfToken: string };
-  const answer = await fetch(`${BASE}/api/auth/callback/credentials`, {
-    method: "POST",
-    redirect: "manual",
-    headers: { "content-type": "application/x-www-form-urlencoded", cookie: cookie() },
-    body: new URLSearchParams({ csrfToken, email, password: PASSWORD, json: "true" }).toString(),
-  });
-  keep(answer);
-  if (![...jar.keys()].some((k) => k.endsWith("session-token"))) throw new Error(`could not sign in ${email} at ${BASE} (${answer.status}); set LOAD_PASSWORD`);
-  return cookie();
+  const { who } = await signedIn(email, PASSWORD, BASE);
+  if (!who.jar.has("session-token")) throw new Error(`could not sign in ${email} at ${BASE}; set LOAD_PASSWORD`);
+  return who.jar.header();
 }
 
 interface Row {

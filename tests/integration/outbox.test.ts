@@ -6,7 +6,6 @@
 import { vi } from "vitest";
 vi.mock("server-only", () => ({}));
 
-import { createServer } from "node:net";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import type { Kysely } from "kysely";
 import { createDb } from "@/db";
@@ -18,6 +17,8 @@ import { POST as resend } from "@/app/api/mail/[id]/resend/route";
 import { POST as setPassword } from "@/app/api/auth/set-password/route";
 import { listCaughtMail, readCaughtMail } from "@/lib/mail";
 import { requireDatabaseUrl } from "./support/database";
+// A port nothing listens on: the mail server is away.
+import { freePort } from "../e2e/support/second-app";
 import { signedRequest, userByEmail, type SignedUser } from "./support/signed-request";
 
 let db: Kysely<Database>;
@@ -27,14 +28,6 @@ const EMAIL = `outbox.${process.pid}@example.org`;
 const json = async (response: Response) => ({ status: response.status, body: (await response.json()) as Record<string, any> });
 const ctx = (id: string | number) => ({ params: Promise.resolve({ id: String(id) }) });
 const none = { params: Promise.resolve({}) };
-
-async function closedPort(): Promise<number> {
-  const server = createServer();
-  await new Promise<void>((resolve) => server.listen(0, "127.0.0.1", resolve));
-  const { port } = server.address() as { port: number };
-  await new Promise((resolve) => server.close(resolve));
-  return port;
-}
 
 async function tokenFromMail(to: string): Promise<string> {
   for (let attempt = 0; attempt < 50; attempt++) {
@@ -67,7 +60,7 @@ describe("the outbox", () => {
 
   it("records an invitation the mail server did not take, with the reason and the link masked", async () => {
     const realPort = process.env.SMTP_PORT;
-    process.env.SMTP_PORT = String(await closedPort());
+    process.env.SMTP_PORT = String(await freePort());
     let answer;
     try {
       answer = await json(await invite(await signedRequest(admin, "http://127.0.0.1/api/users", { name: "Otto Outbox", email: EMAIL, role: "guard" }), none));

@@ -1,6 +1,6 @@
 import type { Metadata } from "next";
 import Link from "next/link";
-import { ownPostsAndFloors } from "@/lib/galleries/own-posts";
+import { ownPostsOfShifts } from "@/lib/galleries/own-posts";
 import { startOfWeek } from "date-fns";
 import { db } from "@/db";
 import { colleaguesOnFloor, currentShiftsOfGuard, guardByUserId, timeOffOfGuard } from "@/db/queries/rosters";
@@ -31,7 +31,7 @@ export default async function MyShiftsPage() {
   // The other guards on the same floor during each shift, for the calendar's shift details.
   const colleagues = guard ? await colleaguesOnFloor(db, guard.id, shifts.map((s) => s.id)) : [];
   // Floors where the guard stands now or soon: their maps, with the guard's own posts marked.
-  const own = guard ? await ownPostsAndFloors(db, guard.id) : { posts: [], floors: [] };
+  const own = await ownPostsOfShifts(db, shifts);
 
   return (
     <div className="space-y-6">

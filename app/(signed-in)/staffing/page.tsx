@@ -4,7 +4,7 @@ import { db } from "@/db";
 import type { Weekday } from "@/db/schema";
 import { rostersOfSite, timeOffOfSite } from "@/db/queries/rosters";
 import { approvalStates } from "@/db/queries/post-plans";
-import { staleApprovalText } from "@/lib/galleries/approval";
+import { staleApprovalDetail } from "@/lib/galleries/approval";
 import { rosterWeeks } from "@/lib/rosters/weeks";
 import { requirePageUser } from "@/lib/auth/session";
 import { addLocalDays, weekdayIndex } from "@/lib/scheduling/time";
@@ -78,7 +78,7 @@ export default async function StaffingPage({ searchParams }: { searchParams: Pro
           <ul className="mt-2 space-y-1 text-sm">
             {stale.map((a) => (
               <li key={`${a.exhibitionId}-${a.roomId}`}>
-                <span className="tag-high">approval stale</span> <Link href={`/galleries/${a.roomId}`}>{a.roomName}</Link>: {staleApprovalText(a).slice(a.roomName.length + 2)}
+                <span className="tag-high">approval stale</span> <Link href={`/galleries/${a.roomId}`}>{a.roomName}</Link>: {staleApprovalDetail(a)}
               </li>
             ))}
           </ul>

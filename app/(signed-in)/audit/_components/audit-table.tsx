@@ -3,7 +3,7 @@
 // any column. Each change lists its fields as "before → after".
 import { createColumnHelper } from "@tanstack/react-table";
 import { useMemo, useState } from "react";
-import { DataTable } from "@/components/data-table";
+import { DataTable, FilterSearch, FilterSelect } from "@/components/data-table";
 import { useSiteFormat } from "@/components/site-format";
 import { formatDate, formatDateTime, type SiteFormat } from "@/lib/format";
 import { AUDIT_AREAS } from "@/lib/audit/areas";
@@ -81,28 +81,9 @@ export function AuditTable({ rows }: { rows: AuditRowView[] }) {
   return (
     <div className="space-y-3">
       <div className="flex flex-wrap items-end gap-3">
-        <div>
-          <label htmlFor="audit-area" className="block text-sm font-semibold">Part</label>
-          <select id="audit-area" className="field-input mt-0" value={area} onChange={(e) => setArea(e.target.value)}>
-            <option value="">every part</option>
-            {Object.entries(AUDIT_AREAS).map(([key, label]) => (
-              <option key={key} value={key}>{label}</option>
-            ))}
-          </select>
-        </div>
-        <div>
-          <label htmlFor="audit-actor" className="block text-sm font-semibold">Who</label>
-          <select id="audit-actor" className="field-input mt-0" value={actor} onChange={(e) => setActor(e.target.value)}>
-            <option value="">everyone</option>
-            {actors.map(([name, role]) => (
-              <option key={name} value={name}>{name} ({role})</option>
-            ))}
-          </select>
-        </div>
-        <div className="min-w-[12rem] flex-1">
-          <label htmlFor="audit-search" className="block text-sm font-semibold">Search</label>
-          <input id="audit-search" type="search" className="field-input mt-0" placeholder="room, guard, week, note…" value={search} onChange={(e) => setSearch(e.target.value)} />
-        </div>
+        <FilterSelect id="audit-area" label="Part" value={area} onChange={setArea} all="every part" options={Object.entries(AUDIT_AREAS)} />
+        <FilterSelect id="audit-actor" label="Who" value={actor} onChange={setActor} all="everyone" options={actors.map(([name, role]) => [name, `${name} (${role})`])} />
+        <FilterSearch id="audit-search" value={search} onChange={setSearch} placeholder="room, guard, week, note…" />
       </div>
       <DataTable data={rows} columns={columns} caption="Changes, newest first" initialSorting={[{ id: "at", desc: true }]} columnFilters={filters} search={search} empty="No changes match." none="No changes recorded yet." testId="audit" />
     </div>

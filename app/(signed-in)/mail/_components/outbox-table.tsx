@@ -3,7 +3,7 @@
 import Link from "next/link";
 import { createColumnHelper } from "@tanstack/react-table";
 import { useMemo, useState } from "react";
-import { DataTable } from "@/components/data-table";
+import { DataTable, FilterSearch, FilterSelect } from "@/components/data-table";
 import { useSiteFormat } from "@/components/site-format";
 import { formatDateTime } from "@/lib/format";
 import { OUTBOX_KINDS, OUTBOX_KIND_LABELS, OUTBOX_STATUSES } from "@/lib/api/outbox";
@@ -64,28 +64,9 @@ export function OutboxTable({ rows }: { rows: OutboxRow[] }) {
   return (
     <div className="space-y-3">
       <div className="flex flex-wrap items-end gap-3">
-        <div>
-          <label htmlFor="outbox-kind" className="block text-sm font-semibold">Kind</label>
-          <select id="outbox-kind" className="field-input mt-0" value={kind} onChange={(e) => setKind(e.target.value)}>
-            <option value="">all kinds</option>
-            {OUTBOX_KINDS.map((k) => (
-              <option key={k} value={k}>{KIND_LABELS[k]}</option>
-            ))}
-          </select>
-        </div>
-        <div>
-          <label htmlFor="outbox-status" className="block text-sm font-semibold">Status</label>
-          <select id="outbox-status" className="field-input mt-0" value={status} onChange={(e) => setStatus(e.target.value)}>
-            <option value="">any status</option>
-            {OUTBOX_STATUSES.map((s) => (
-              <option key={s} value={s}>{s}</option>
-            ))}
-          </select>
-        </div>
-        <div className="min-w-[12rem] flex-1">
-          <label htmlFor="outbox-search" className="block text-sm font-semibold">Search</label>
-          <input id="outbox-search" type="search" className="field-input mt-0" placeholder="recipient or subject" value={search} onChange={(e) => setSearch(e.target.value)} />
-        </div>
+        <FilterSelect id="outbox-kind" label="Kind" value={kind} onChange={setKind} all="all kinds" options={OUTBOX_KINDS.map((k) => [k, KIND_LABELS[k]])} />
+        <FilterSelect id="outbox-status" label="Status" value={status} onChange={setStatus} all="any status" options={OUTBOX_STATUSES.map((s) => [s, s])} />
+        <FilterSearch id="outbox-search" value={search} onChange={setSearch} placeholder="recipient or subject" />
       </div>
       <DataTable
         data={rows}

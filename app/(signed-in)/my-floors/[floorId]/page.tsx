@@ -33,7 +33,7 @@ export default async function GuardFloorMapPage({ params }: { params: Promise<{ 
         <p className="text-stone-700">Your posts on this floor are marked in gold with their number. Posts never block exits or evacuation routes.</p>
       </div>
       {/* Our own SVG, built from stored numbers with every text escaped (lib/galleries/floor-map.ts). */}
-      <div className="card overflow-x-auto" data-testid="floor-map" dangerouslySetInnerHTML={{ __html: sheet.svg.replace(/ width="[^"]*mm" height="[^"]*mm"/, ' width="100%"') }} />
+      <div className="card overflow-x-auto" data-testid="floor-map" dangerouslySetInnerHTML={{ __html: sheet.inlineSvg }} />
     </div>
   );
 }

@@ -18,8 +18,7 @@ export const GET = route<Context>(async (request: NextRequest, context) => {
   const { floorId } = parseParams(await context.params, floorIdParams);
   const sheet = await floorMapSheet(db, floorId);
   if (!sheet) throw new ApiProblem(404, "not-found", `There is no floor ${floorId}; reload the galleries.`);
-  const file = `${sheet.title.replace(/[^\w\- ]+/g, "").replace(/\s+/g, "-").toLowerCase() || "floor"}.svg`;
   return new Response(sheet.svg, {
-    headers: { "content-type": "image/svg+xml; charset=utf-8", "content-disposition": `attachment; filename="${file}"`, "cache-control": "no-store" },
+    headers: { "content-type": "image/svg+xml; charset=utf-8", "content-disposition": `attachment; filename="${sheet.fileName}.svg"`, "cache-control": "no-store" },
   });
 });

@@ -19,7 +19,6 @@ export default async function FloorMapPage({ params }: { params: Promise<{ floor
   const posts = sheet.map.rooms.reduce((n, r) => n + (r.posts?.length ?? 0), 0);
   const unseen = sheet.map.rooms.filter((r) => r.covered !== null && r.covered < 1 - 1e-9).map((r) => r.name);
   const stale = sheet.map.rooms.filter((r) => r.stale).map((r) => r.name);
-  const fileName = sheet.title.replace(/[^\w\- ]+/g, "").replace(/\s+/g, "-").toLowerCase() || "floor";
   return (
     <div className="space-y-4">
       <p className="print:hidden">
@@ -35,9 +34,9 @@ export default async function FloorMapPage({ params }: { params: Promise<{ floor
         {unseen.length > 0 && <p className="font-semibold text-alert-700">Floor no post sees: {unseen.join(", ")}.</p>}
         {stale.length > 0 && <p className="font-semibold text-alert-700">Approval stale (walls changed since): {stale.join(", ")}; compute and approve new plans.</p>}
       </div>
-      <MapActions floorId={sheet.floor.id} fileName={fileName} />
+      <MapActions floorId={sheet.floor.id} fileName={sheet.fileName} />
       {/* Our own SVG, built from stored numbers with every text escaped (lib/galleries/floor-map.ts). */}
-      <div className="card floor-map overflow-x-auto print:border-0 print:p-0 print:shadow-none" data-testid="floor-map" dangerouslySetInnerHTML={{ __html: sheet.svg.replace(/ width="[^"]*mm" height="[^"]*mm"/, ' width="100%"') }} />
+      <div className="card floor-map overflow-x-auto print:border-0 print:p-0 print:shadow-none" data-testid="floor-map" dangerouslySetInnerHTML={{ __html: sheet.inlineSvg }} />
     </div>
   );
 }
